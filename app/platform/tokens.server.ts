@@ -1,0 +1,11 @@
+// Random tokens for links in e-mails; only their SHA-256 is stored.
+import { createHash, randomBytes } from "node:crypto";
+
+export function newToken() {
+  const token = randomBytes(32).toString("base64url");
+  return { token, hash: hashToken(token) };
+}
+
+export function hashToken(token: string) {
+  return createHash("sha256").update(token).digest("hex");
+}
