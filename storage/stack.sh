@@ -43,26 +43,27 @@ services_up() {
   bash db/postgres.sh up
   if [ "$profile" = test ]; then bash db/postgres.sh recreatedb "$COUNTERSIGN_DB"; else bash db/postgres.sh createdb "$COUNTERSIGN_DB"; fi
   log "S3 and mail fakes"
-  if [ "$profile" = test ]; then bash storage/fakes.sh down test >/dev/null; rm -rf storage/.data/test; fi
-  bash storage/fakes.sh up "$profile"
+  if [ "$profile" = test ]; then bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null; rm -rf "storage/.data/$COUNTERSIGN_RUN"; fi
+  bash storage/fakes.sh up "$COUNTERSIGN_RUN"
   log "migrations"
   tsx db/migrate.ts up
 }
 
 build_if_stale() {
-  if [ -f build/server/index.js ] && [ -z "$(find app public react-router.config.ts vite.config.ts package-lock.json -newer build/server/index.js -print -quit)" ]; then
+  local out=$COUNTERSIGN_BUILD_DIR/server/index.js
+  if [ -f "$out" ] && [ -z "$(find app public db react-router.config.ts vite.config.ts package-lock.json -newer "$out" -print -quit)" ]; then
     return 0
   fi
   log "building the app"
-  react-router build >.run/build.log 2>&1 || { cat .run/build.log; exit 1; }
+  react-router build >".run/build-$COUNTERSIGN_RUN.log" 2>&1 || { cat ".run/build-$COUNTERSIGN_RUN.log"; exit 1; }
 }
 
 serve_background() {
-  local profile=$1
+  local profile=$COUNTERSIGN_RUN
   mkdir -p ".run/$profile"
   local pidfile=".run/$profile/app.pid"
   if [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null; then kill "$(cat "$pidfile")"; sleep 0.3; fi
-  HOST=127.0.0.1 PORT=$APP_PORT node node_modules/@react-router/serve/bin.js build/server/index.js \
+  HOST=127.0.0.1 PORT=$APP_PORT node node_modules/@react-router/serve/bin.js "$COUNTERSIGN_BUILD_DIR/server/index.js" \
     >".run/$profile/app.log" 2>&1 &
   echo $! >"$pidfile"
   for _ in $(seq 1 150); do
@@ -82,7 +83,7 @@ start() {
   log "demo data"
   tsx db/seed.ts
   build_if_stale
-  serve_background dev
+  serve_background
   cat <<MSG
 
   Countersign is running at $APP_URL
@@ -99,12 +100,12 @@ MSG
 run_tests() {
   npm_deps
   os_deps test
-  mkdir -p .run/test
   services_up test
+  mkdir -p ".run/$COUNTERSIGN_RUN"
   build_if_stale
-  serve_background test
+  serve_background
   local status=0
-  trap 'kill "$(cat .run/test/app.pid)" 2>/dev/null || true; bash storage/fakes.sh down test >/dev/null || true' EXIT
+  trap 'kill "$(cat ".run/$COUNTERSIGN_RUN/app.pid")" 2>/dev/null || true; bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null || true' EXIT
   log "unit and integration tests (vitest)"
   vitest run "$@" || status=$?
   if [ "${SKIP_E2E:-}" != 1 ]; then
@@ -115,7 +116,8 @@ run_tests() {
 }
 
 stop() {
-  for profile in dev test; do
+  for profile in $(ls .run 2>/dev/null); do
+    [ -d ".run/$profile" ] || continue
     if [ -f ".run/$profile/app.pid" ] && kill -0 "$(cat ".run/$profile/app.pid")" 2>/dev/null; then
       kill "$(cat ".run/$profile/app.pid")" && echo "app ($profile): stopped"
     fi
