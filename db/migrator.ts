@@ -1,14 +1,15 @@
 // The one migration runner, used by `npm start`, `npm test` and CI alike.
-import path from "node:path";
-import { fileURLToPath } from "node:url";
+import type { QueryInterface, Sequelize } from "sequelize";
 import { SequelizeStorage, Umzug } from "umzug";
-import type { Sequelize } from "sequelize";
-
-const here = path.dirname(fileURLToPath(import.meta.url));
+import { MIGRATIONS } from "./migrations";
 
 export function createMigrator(sequelize: Sequelize) {
-  return new Umzug({
-    migrations: { glob: ["migrations/*.ts", { cwd: here }] },
+  return new Umzug<QueryInterface>({
+    migrations: MIGRATIONS.map((m) => ({
+      name: m.name,
+      up: ({ context }) => m.up({ context, name: m.name }),
+      down: ({ context }) => m.down({ context, name: m.name }),
+    })),
     context: sequelize.getQueryInterface(),
     storage: new SequelizeStorage({ sequelize, tableName: "schema_migrations" }),
     logger: undefined,

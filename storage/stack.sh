@@ -132,5 +132,7 @@ case "${1:-}" in
   test) shift; run_tests "$@" ;;
   stop) stop ;;
   services) npm_deps; services_up "${2:-dev}" ;;
+  # Bring a profile up and leave it running (for running one test file at a time).
+  up) npm_deps; services_up "${2:-test}"; mkdir -p ".run/$COUNTERSIGN_RUN"; build_if_stale; serve_background; echo "up: $APP_URL" ;;
   *) echo "usage: $0 start|test|stop|services [dev|test]" >&2; exit 2 ;;
 esac

@@ -23,6 +23,17 @@ const schema = z.object({
     .pipe(z.array(z.string().min(8)).min(1)),
   APP_URL: z.string().url().default("http://127.0.0.1:3000"),
   MAX_FORM_BYTES: z.coerce.number().int().positive().default(1_048_576),
+  // Drawing uploads: the largest PDF and the most pages accepted, and where uploads wait while being checked.
+  UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(200 * 1024 * 1024),
+  UPLOAD_MAX_PAGES: z.coerce.number().int().positive().default(100),
+  UPLOAD_TMP_DIR: z.string().optional(),
+  // Lifetime of presigned download links, in seconds.
+  DOWNLOAD_URL_TTL_SECONDS: z.coerce.number().int().min(30).max(3600).default(300),
+  // Run the background job worker in this process (set false for a web-only process).
+  JOBS_WORKER: z
+    .enum(["true", "false"])
+    .default("true")
+    .transform((v) => v === "true"),
 });
 
 export type Env = z.infer<typeof schema>;

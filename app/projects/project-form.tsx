@@ -16,6 +16,7 @@ export function ProjectForm({ lastResult, defaultValue, submitLabel }: {
     lastResult,
     defaultValue,
     shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
     onValidate: ({ formData }) => parseWithZod(formData, { schema: projectSchema }),
   });
   return (

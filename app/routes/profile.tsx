@@ -45,6 +45,7 @@ export default function Profile({ loaderData, actionData }: Route.ComponentProps
       registrationBody: profile.registrationBody ?? "",
     },
     shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
     onValidate: ({ formData }) => parseWithZod(formData, { schema: profileSchema }),
   });
   const state = profile.registrationState ? STATE[profile.registrationState] : null;

@@ -36,6 +36,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
   const [form, fields] = useForm({
     lastResult: actionData,
     shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signInSchema }),
   });
   const notice = params.get("notice");

@@ -36,6 +36,7 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
   const [form, fields] = useForm({
     lastResult: actionData,
     shouldValidate: "onBlur",
+    shouldRevalidate: "onInput",
     onValidate: ({ formData }) => parseWithZod(formData, { schema: signUpSchema }),
   });
   const isEngineer = fields.profession.value === "engineer";

@@ -18,3 +18,24 @@ Invitation.belongsTo(User, { as: "invitedBy", foreignKey: "invitedById" });
 export { AuditEvent, Invitation, PasswordReset, Project, ProjectMember, Session, SignInAttempt, User };
 export { REGISTRATION_STATES, type RegistrationState } from "./user";
 export { sequelize, isDatabaseUnavailable } from "../connection";
+
+// The drawing register.
+import { Drawing } from "./drawing";
+import { DrawingRevision } from "./drawing-revision";
+import { Transmittal } from "./transmittal";
+import { TransmittalItem } from "./transmittal-item";
+import { TransmittalRecipient } from "./transmittal-recipient";
+
+Drawing.hasMany(DrawingRevision, { as: "revisions", foreignKey: "drawingId" });
+DrawingRevision.belongsTo(Drawing, { as: "drawing", foreignKey: "drawingId" });
+DrawingRevision.belongsTo(User, { as: "uploadedBy", foreignKey: "uploadedById" });
+DrawingRevision.belongsTo(User, { as: "issuedBy", foreignKey: "issuedById" });
+Transmittal.hasMany(TransmittalItem, { as: "items", foreignKey: "transmittalId" });
+Transmittal.hasMany(TransmittalRecipient, { as: "recipients", foreignKey: "transmittalId" });
+Transmittal.belongsTo(User, { as: "issuedBy", foreignKey: "issuedById" });
+TransmittalItem.belongsTo(DrawingRevision, { as: "revision", foreignKey: "revisionId" });
+TransmittalRecipient.belongsTo(User, { as: "user", foreignKey: "userId" });
+TransmittalRecipient.belongsTo(Transmittal, { as: "transmittal", foreignKey: "transmittalId" });
+
+export { Drawing, DrawingRevision, Transmittal, TransmittalItem, TransmittalRecipient };
+export { PROCESSING_STATES, REVISION_STATUSES, type PageSize, type ProcessingState, type RevisionStatus, type TextRun } from "./drawing-revision";

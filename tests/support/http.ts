@@ -54,6 +54,11 @@ export class Client {
   }
 }
 
+/** A page's HTML with React's text-joining comments removed, for plain `toContain` checks. */
+export async function pageText(res: Response) {
+  return (await res.text()).replace(/<!-- -->/g, "");
+}
+
 let counter = 0;
 export function uniqueEmail(tag = "person") {
   return `${tag}-${Date.now().toString(36)}-${(counter++).toString(36)}@test.example`;

@@ -1,0 +1,9 @@
+// Every migration, in order. Listed explicitly (not globbed) so the same runner works under tsx, vitest and a
+// bundled server alike. Add new migrations at the end.
+import * as foundation from "./2026.12.01T00.00.00.foundation";
+import * as drawings from "./2026.12.01T01.00.00.drawings";
+
+export const MIGRATIONS = [
+  { name: "2026.12.01T00.00.00.foundation", ...foundation },
+  { name: "2026.12.01T01.00.00.drawings", ...drawings },
+];

@@ -1,0 +1,121 @@
+// Platform behaviour: cross-site and origin-less writes refused, oversized bodies refused, JSON errors for the
+// API, security headers, and a clear 503 while PostgreSQL is unreachable — recovering by itself afterwards.
+import { spawn, type ChildProcess } from "node:child_process";
+import http from "node:http";
+import net from "node:net";
+import { afterAll, describe, expect, it } from "vitest";
+import { Project } from "../../db/models";
+import { makeUser, PASSWORD } from "../support/factory";
+import { Client } from "../support/http";
+
+describe("write protection", () => {
+  it("refuses a POST from another origin, and one without an origin, changing nothing", async () => {
+    const user = await makeUser();
+    const c = new Client();
+    await c.signIn(user.email, PASSWORD);
+    const before = await Project.count();
+    // The framework itself already answers a foreign Origin with 400; ours adds the origin-less case and a message.
+    const foreign = await c.post("/projects/new", { name: "Sneaky project", siteAddress: "1 Nowhere Street" }, { origin: "https://evil.example" });
+    expect([400, 403]).toContain(foreign.status);
+    const none = await c.post("/projects/new", { name: "Sneaky project", siteAddress: "1 Nowhere Street" }, { origin: null });
+    expect(none.status).toBe(403);
+    expect(await none.text()).toContain("sent from another site, or without an origin");
+    expect(await Project.count()).toBe(before);
+  });
+
+  it("refuses an oversized form body with 413", async () => {
+    // On its own connection: the server does not read the refused body, so that socket is not reused.
+    const body = new URLSearchParams({ email: "a@b.example", password: "x".repeat(1_200_000) }).toString();
+    const url = new URL("/sign-in", new Client().base);
+    const { status, text } = await new Promise<{ status: number; text: string }>((resolve, reject) => {
+      const req = http.request(url, { method: "POST", agent: false, headers: { origin: url.origin, "content-type": "application/x-www-form-urlencoded", "content-length": Buffer.byteLength(body) } }, (res) => {
+        let text = "";
+        res.on("data", (d) => (text += d)).on("end", () => resolve({ status: res.statusCode!, text }));
+      });
+      req.on("error", reject);
+      req.end(body);
+    });
+    expect(status).toBe(413);
+    expect(text).toContain("too large");
+  });
+
+  it("answers unknown API paths and unauthenticated API calls with JSON", async () => {
+    const c = new Client();
+    const missing = await c.json("/api/nothing-here");
+    expect(missing).toEqual({ status: 404, body: { status: 404, message: "No such API endpoint." } });
+    const anon = await c.json("/api/projects");
+    expect(anon.status).toBe(401);
+    expect(anon.body.message).toMatch(/Sign in/);
+  });
+
+  it("sends security headers and a nonce-based CSP on documents", async () => {
+    const res = await new Client().get("/sign-in");
+    const csp = res.headers.get("content-security-policy")!;
+    expect(csp).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]+'/);
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(res.headers.get("x-content-type-options")).toBe("nosniff");
+    const nonce = csp.match(/'nonce-([^']+)'/)![1];
+    const html = await res.text();
+    for (const tag of html.match(/<script\b[^>]*>/g) ?? []) expect(tag).toContain(`nonce="${nonce}"`);
+  });
+});
+
+// A TCP relay in front of PostgreSQL that the test can cut and restore, and a second app server that uses it.
+function relay(targetPort: number) {
+  const sockets = new Set<net.Socket>();
+  const server = net.createServer((client) => {
+    const upstream = net.connect(targetPort, "127.0.0.1");
+    sockets.add(client).add(upstream);
+    client.pipe(upstream).pipe(client);
+    const drop = () => { client.destroy(); upstream.destroy(); };
+    client.on("error", drop).on("close", drop);
+    upstream.on("error", drop).on("close", drop);
+  });
+  return {
+    listen: (port: number) => new Promise<void>((r) => server.listen(port, "127.0.0.1", () => r())),
+    cut: () => new Promise<void>((r) => { for (const s of sockets) s.destroy(); sockets.clear(); server.close(() => r()); }),
+  };
+}
+
+describe("database outage", () => {
+  let app: ChildProcess | undefined;
+  afterAll(() => app?.kill());
+
+  it("answers 503 with a clear page while PostgreSQL is unreachable and recovers by itself", async () => {
+    const dbUrl = new URL(process.env.DATABASE_URL!);
+    const relayPort = 45000 + Math.floor(Math.random() * 1000);
+    const appPort = 46000 + Math.floor(Math.random() * 1000);
+    const pg = relay(Number(dbUrl.port));
+    await pg.listen(relayPort);
+    dbUrl.port = String(relayPort);
+    const user = await makeUser();
+    app = spawn(process.execPath, ["node_modules/@react-router/serve/bin.js", `${process.env.COUNTERSIGN_BUILD_DIR ?? "build"}/server/index.js`], {
+      env: { ...process.env, DATABASE_URL: dbUrl.toString(), PORT: String(appPort), HOST: "127.0.0.1", APP_URL: `http://127.0.0.1:${appPort}` },
+      stdio: "ignore",
+    });
+    const base = `http://127.0.0.1:${appPort}`;
+    for (let i = 0; i < 100; i++) {
+      try { await fetch(`${base}/healthz`); break; } catch { await new Promise((r) => setTimeout(r, 100)); }
+    }
+    const c = new Client(base);
+    await c.signIn(user.email, PASSWORD);
+    expect((await c.get("/projects")).status).toBe(200);
+
+    await pg.cut();
+    const down = await c.get("/projects");
+    expect(down.status).toBe(503);
+    expect(await down.text()).toContain("cannot reach its database");
+    expect((await c.json("/api/projects")).status).toBe(503);
+    expect((await fetch(`${base}/healthz`)).status).toBe(503);
+
+    const back = relay(Number(new URL(process.env.DATABASE_URL!).port));
+    await back.listen(relayPort);
+    let status = 0;
+    for (let i = 0; i < 50 && status !== 200; i++) {
+      status = (await c.get("/projects")).status;
+      if (status !== 200) await new Promise((r) => setTimeout(r, 200));
+    }
+    expect(status).toBe(200);
+    await back.cut();
+  });
+});
