@@ -88,8 +88,7 @@ start() {
 
   Countersign is running at $APP_URL
   Mail inbox (local fake): $MAIL_API_URL
-  Demo sign-ins (password for all: $(tsx -e 'import("./db/demo.ts").then(m=>process.stdout.write(m.DEMO_PASSWORD))')):
-$(tsx -e 'import("./db/demo.ts").then(m=>{for(const p of m.DEMO_PEOPLE)console.log("    "+p.role.padEnd(14)+p.email)})')
+$(tsx db/sign-ins.ts)
 
   Stop with Ctrl-C (the app) and \`npm run stop\` (database and fakes).
 MSG

@@ -35,9 +35,9 @@ export function MemberPicker({ projectId, label = "Find a member" }: { projectId
           <li className="px-3 py-2 text-ink-soft">{fetcher.state === "idle" ? "No member matches." : "Searching…"}</li>
         ) : (
           members.map((m) => (
-            <li key={m.id} className="flex flex-wrap justify-between gap-2 px-3 py-2">
-              <span><span className="font-semibold">{m.name}</span> <span className="text-ink-soft">{m.email}</span></span>
-              <span className="text-ink-soft">{ROLE_LABELS[m.role]}</span>
+            <li key={m.id} className="px-3 py-2">
+              <p className="flex flex-wrap justify-between gap-x-2"><span className="font-semibold">{m.name}</span><span className="text-ink-soft">{ROLE_LABELS[m.role]}</span></p>
+              <p className="break-all text-ink-soft">{m.email}</p>
             </li>
           ))
         )}

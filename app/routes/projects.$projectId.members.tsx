@@ -10,7 +10,7 @@ import { requireProjectAction } from "~/projects/projects.server";
 import { changeRoleSchema, inviteSchema, removeMemberSchema, revokeInvitationSchema } from "~/projects/schemas";
 import { Button } from "~/ui/button";
 import { FormErrors, SelectField, TextField } from "~/ui/form";
-import { MailIcon } from "~/ui/icons";
+import { AlertIcon, CheckIcon, ClockIcon, MailIcon } from "~/ui/icons";
 import { RoleBadge } from "~/ui/role-badge";
 import { Panel } from "~/ui/shell";
 
@@ -64,6 +64,7 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
                   <td className="sm:py-3">
                     <p className="font-semibold">{m.name}{m.userId === me ? <span className="text-ink-soft"> (you)</span> : null}</p>
                     <p className="text-ink-soft">{m.email}</p>
+                    {m.registrationState ? <RegistrationState state={m.registrationState} /> : null}
                   </td>
                   <td className="sm:py-3">
                     {manage ? (
@@ -119,6 +120,12 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
       </div>
     </div>
   );
+}
+
+function RegistrationState({ state }: { state: string }) {
+  const text = { unverified: "Registration not yet verified", verified: "Registration verified", revoked: "Registration revoked" }[state] ?? state;
+  const Icon = state === "verified" ? CheckIcon : state === "revoked" ? AlertIcon : ClockIcon;
+  return <p className="mt-1 flex items-center gap-1.5 text-xs font-medium text-ink-soft"><Icon className="text-copper" /> {text}</p>;
 }
 
 function InviteForm({ lastResult, done }: { lastResult?: SubmissionResult<string[]> | null; done?: string }) {

@@ -2,7 +2,7 @@
 import type { ReactNode } from "react";
 import { Form, Link, NavLink } from "react-router";
 import type { CurrentUser } from "../accounts/context";
-import { Mark } from "./icons";
+import { Mark, PersonIcon } from "./icons";
 
 export function Shell({ user, children }: { user: CurrentUser | null; children: ReactNode }) {
   return (
@@ -20,9 +20,15 @@ export function Shell({ user, children }: { user: CurrentUser | null; children: 
             <nav aria-label="Main" className="flex flex-1 items-center gap-1 text-sm font-medium">
               <NavItem to="/projects">My projects</NavItem>
               <span className="flex-1" />
-              <NavItem to="/profile">{user.name}</NavItem>
+              <NavItem to="/profile">
+                <span className="inline-flex items-center gap-1.5">
+                  <PersonIcon className="text-copper" />
+                  <span className="hidden max-w-[14rem] truncate sm:inline">{user.name}</span>
+                  <span className="sm:hidden">Profile</span>
+                </span>
+              </NavItem>
               <Form method="post" action="/sign-out">
-                <button className="rounded-md px-3 py-2 text-ink-soft hover:text-copper-deep">Sign out</button>
+                <button className="whitespace-nowrap rounded-md px-3 py-2 text-ink-soft hover:text-copper-deep">Sign out</button>
               </Form>
             </nav>
           ) : (
@@ -47,7 +53,7 @@ function NavItem({ to, children }: { to: string; children: ReactNode }) {
     <NavLink
       to={to}
       className={({ isActive }) =>
-        `rounded-md px-3 py-2 hover:text-copper-deep ${isActive ? "text-copper-deep underline decoration-2 underline-offset-8" : "text-ink"}`
+        `whitespace-nowrap rounded-md px-3 py-2 hover:text-copper-deep ${isActive ? "text-copper-deep underline decoration-2 underline-offset-8" : "text-ink"}`
       }
     >
       {children}
