@@ -105,12 +105,16 @@ run_tests() {
   serve_background
   local status=0
   trap 'kill "$(cat ".run/$COUNTERSIGN_RUN/app.pid")" 2>/dev/null || true; bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null || true' EXIT
+  local reports=".run/$COUNTERSIGN_RUN"
+  rm -f "$reports/vitest.json" "$reports/playwright.json"
   log "unit and integration tests (vitest)"
-  vitest run "$@" || status=$?
+  vitest run --reporter=default --reporter=json --outputFile.json="$reports/vitest.json" "$@" || status=$?
   if [ "${SKIP_E2E:-}" != 1 ]; then
     log "end-to-end tests (Playwright on Debian Chromium)"
-    playwright test || status=$?
+    PLAYWRIGHT_JSON_OUTPUT_NAME="$reports/playwright.json" playwright test --reporter=list,json || status=$?
   fi
+  echo
+  tsx tests/support/summary.ts "$reports/vitest.json" "$reports/playwright.json"
   return $status
 }
 
