@@ -23,6 +23,8 @@ const schema = z.object({
     .pipe(z.array(z.string().min(8)).min(1)),
   APP_URL: z.string().url().default("http://127.0.0.1:3000"),
   MAX_FORM_BYTES: z.coerce.number().int().positive().default(1_048_576),
+  /** Encrypts engineers' signing keys at rest. Changing it makes existing keys unusable (engineers are re-verified). */
+  SIGNING_KEY_SECRET: z.string().min(16).default("dev-only-signing-key-secret"),
   // Drawing uploads: the largest PDF and the most pages accepted, and where uploads wait while being checked.
   UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(200 * 1024 * 1024),
   UPLOAD_MAX_PAGES: z.coerce.number().int().positive().default(100),
@@ -47,6 +49,9 @@ function readEnv(): Env {
   if (parsed.data.NODE_ENV === "production" && parsed.data.APP_URL.startsWith("https:")) {
     if (parsed.data.SESSION_SECRET.some((s) => s.startsWith("dev-only") || s === "change-me-in-production")) {
       throw new Error("Countersign cannot start: set SESSION_SECRET to a real secret for an https deployment.");
+    }
+    if (parsed.data.SIGNING_KEY_SECRET.startsWith("dev-only")) {
+      throw new Error("Countersign cannot start: set SIGNING_KEY_SECRET for an https deployment.");
     }
   }
   return parsed.data;

@@ -1,6 +1,6 @@
 import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, useNavigation } from "react-router";
+import { data, Form, Link, useNavigation } from "react-router";
 import type { Route } from "./+types/projects.$projectId.members";
 import { inviteMember, listOpenInvitations, revokeInvitation } from "~/projects/invitations.server";
 import { MemberPicker } from "~/projects/member-picker";
@@ -65,6 +65,11 @@ export default function Members({ loaderData, actionData }: Route.ComponentProps
                     <p className="font-semibold">{m.name}{m.userId === me ? <span className="text-ink-soft"> (you)</span> : null}</p>
                     <p className="text-ink-soft">{m.email}</p>
                     {m.registrationState ? <RegistrationState state={m.registrationState} /> : null}
+                    {manage && m.role === "engineer" && m.userId !== me ? (
+                      <Link to={`${m.id}/verify`} className="mt-1 inline-block text-xs font-semibold text-copper-deep underline underline-offset-4">
+                        {m.registrationState === "verified" ? "Registration record" : "Verify registration"}
+                      </Link>
+                    ) : null}
                   </td>
                   <td className="sm:py-3">
                     {manage ? (

@@ -39,3 +39,12 @@ TransmittalRecipient.belongsTo(Transmittal, { as: "transmittal", foreignKey: "tr
 
 export { Drawing, DrawingRevision, Transmittal, TransmittalItem, TransmittalRecipient };
 export { PROCESSING_STATES, REVISION_STATUSES, type PageSize, type ProcessingState, type RevisionStatus, type TextRun } from "./drawing-revision";
+
+// Engineer verification and signing identities.
+import { RegistrationVerification } from "./registration-verification";
+import { SigningKey } from "./signing-key";
+
+SigningKey.belongsTo(User, { as: "user", foreignKey: "userId" });
+RegistrationVerification.belongsTo(User, { as: "verifiedBy", foreignKey: "verifiedById" });
+
+export { RegistrationVerification, SigningKey };
