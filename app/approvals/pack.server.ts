@@ -1,0 +1,197 @@
+// The approval pack: each affected sheet with the engineer's markups drawn in as vector graphics and an approval
+// stamp (decision, number and version, engineer and registration, date, short hash, QR to the verification
+// page), then a record page. Returns the unsaved document: signing adds its placeholder and is the last write.
+import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import QRCode from "qrcode";
+import { embedFonts, printable, type PdfFonts } from "../platform/pdf-fonts.server";
+import { markupPath, type MarkupShape } from "../review/markups";
+
+export interface PackSheet {
+  sheetNumber: string;
+  title: string;
+  revisionLabel: string;
+  sha256: string;
+  pdf: Uint8Array;
+  /** 1-based pages of the revision to include (all when omitted). */
+  pages?: number[];
+  markups: (MarkupShape & { page: number })[];
+}
+
+export interface PackInput {
+  approval: { reference: string; version: number; decision: string; signedAt: Date; verifyUrl: string; snapshotSha256: string };
+  engineer: { name: string; registrationNumber: string; registrationBody: string };
+  project: { name: string; siteAddress: string };
+  request: { title: string; provision: string; clauseRef: string; constraint: string; proposal: string };
+  principles: { label: string; outcome: string; reasoning: string }[];
+  conditions: string[];
+  calculations: { title: string; lines: string[]; engineVersion: string }[];
+  sheets: PackSheet[];
+  caution: string;
+}
+
+const INK = rgb(0.114, 0.102, 0.086);
+const SOFT = rgb(0.353, 0.322, 0.282);
+const COPPER = rgb(0.604, 0.29, 0.125);
+const PAPER = rgb(1, 0.992, 0.973);
+
+function hexColor(hex: string) {
+  const n = Number.parseInt(hex.slice(1), 16);
+  return rgb(((n >> 16) & 255) / 255, ((n >> 8) & 255) / 255, (n & 255) / 255);
+}
+
+function drawMarkup(page: PDFPage, m: MarkupShape, fonts: PdfFonts) {
+  const height = page.getHeight();
+  const color = hexColor(m.color);
+  const common = { x: 0, y: height, borderColor: color, borderWidth: m.strokeWidthPt };
+  if (m.kind === "highlighter") {
+    page.drawSvgPath(markupPath({ ...m, kind: "polyline" }), { ...common, borderWidth: Math.max(m.strokeWidthPt, 8), borderOpacity: 0.35 });
+    return;
+  }
+  if (m.kind === "callout") {
+    const [ax, ay, bx, by] = m.points as [number, number, number, number];
+    page.drawSvgPath(`M ${ax} ${ay} L ${bx} ${by}`, common);
+    const lines = wrap(printable(m.text ?? ""), fonts.regular, 9, 180);
+    const boxH = lines.length * 11 + 8;
+    page.drawRectangle({ x: bx, y: height - by - boxH, width: 190, height: boxH, color: PAPER, borderColor: color, borderWidth: m.strokeWidthPt });
+    lines.forEach((line, i) => page.drawText(line, { x: bx + 5, y: height - by - 13 - i * 11, size: 9, font: fonts.regular, color: INK }));
+    return;
+  }
+  page.drawSvgPath(markupPath(m), common);
+  if (m.kind === "measure" && m.text) {
+    const [x1, y1, x2, y2] = m.points as [number, number, number, number];
+    page.drawText(printable(m.text), { x: (x1 + x2) / 2 + 4, y: height - (y1 + y2) / 2 + 4, size: 9, font: fonts.semibold, color });
+  }
+}
+
+function wrap(text: string, font: PDFFont, size: number, width: number): string[] {
+  const out: string[] = [];
+  for (const paragraph of text.split("\n")) {
+    let line = "";
+    for (const word of paragraph.split(/\s+/).filter(Boolean)) {
+      const next = line ? `${line} ${word}` : word;
+      if (font.widthOfTextAtSize(next, size) > width && line) {
+        out.push(line);
+        line = word;
+      } else line = next;
+    }
+    out.push(line);
+  }
+  return out;
+}
+
+async function drawQr(page: PDFPage, url: string, x: number, y: number, size: number) {
+  const qr = QRCode.create(url, { errorCorrectionLevel: "M" });
+  const n = qr.modules.size;
+  const cell = size / n;
+  page.drawRectangle({ x: x - cell, y: y - cell, width: size + 2 * cell, height: size + 2 * cell, color: rgb(1, 1, 1) });
+  for (let r = 0; r < n; r++) {
+    for (let c = 0; c < n; c++) {
+      if (qr.modules.get(r, c)) page.drawRectangle({ x: x + c * cell, y: y + size - (r + 1) * cell, width: cell, height: cell, color: INK });
+    }
+  }
+}
+
+async function drawStamp(page: PDFPage, input: PackInput, sheet: PackSheet, fonts: PdfFonts) {
+  const w = 300;
+  const h = 112;
+  const x = page.getWidth() - w - 18;
+  const y = 18;
+  page.drawRectangle({ x, y, width: w, height: h, color: PAPER, borderColor: COPPER, borderWidth: 2, opacity: 0.96 });
+  const text = (s: string, dx: number, dy: number, size: number, font: PDFFont, color = INK) =>
+    page.drawText(printable(s), { x: x + dx, y: y + h - dy, size, font, color, maxWidth: w - 100 });
+  text("COUNTERSIGN · RATIONAL DESIGN", 10, 16, 7.5, fonts.bold, COPPER);
+  text(input.approval.decision.toUpperCase(), 10, 32, 12, fonts.bold);
+  text(`${input.approval.reference} · approval v${input.approval.version}`, 10, 46, 9, fonts.semibold);
+  text(`${input.engineer.name}`, 10, 60, 8.5, fonts.regular);
+  text(`Reg. ${input.engineer.registrationNumber} (${input.engineer.registrationBody})`, 10, 71, 7.5, fonts.regular, SOFT);
+  text(`Signed ${input.approval.signedAt.toISOString().slice(0, 10)} · sheet ${sheet.sheetNumber} rev ${sheet.revisionLabel}`, 10, 83, 7.5, fonts.regular, SOFT);
+  text(`Record ${input.approval.snapshotSha256.slice(0, 12)} · verify by scanning`, 10, 95, 7.5, fonts.regular, SOFT);
+  text("Digitally signed; a printed copy is only a copy.", 10, 106, 6.5, fonts.regular, SOFT);
+  await drawQr(page, input.approval.verifyUrl, x + w - 88, y + 14, 78);
+}
+
+function recordPages(doc: PDFDocument, input: PackInput, fonts: PdfFonts) {
+  const [W, H, M] = [595.28, 841.89, 48];
+  let page = doc.addPage([W, H]);
+  let y = H - M;
+  const ensure = (needed: number) => {
+    if (y - needed < M) {
+      page = doc.addPage([W, H]);
+      y = H - M;
+    }
+  };
+  const para = (s: string, size = 9.5, font = fonts.regular, color = INK, indent = 0) => {
+    for (const line of wrap(printable(s), font, size, W - 2 * M - indent)) {
+      ensure(size + 4);
+      y -= size;
+      page.drawText(line, { x: M + indent, y, size, font, color });
+      y -= 4;
+    }
+  };
+  const heading = (s: string) => {
+    y -= 10;
+    ensure(30);
+    y -= 12;
+    page.drawText(printable(s), { x: M, y, size: 12, font: fonts.bold, color: COPPER });
+    y -= 8;
+  };
+
+  para("COUNTERSIGN · APPROVAL RECORD", 8, fonts.bold, COPPER);
+  para(`${input.approval.reference}: ${input.request.title}`, 17, fonts.bold);
+  para(`${input.approval.decision} · approval version ${input.approval.version} · signed ${input.approval.signedAt.toISOString().replace("T", " ").slice(0, 16)} UTC`, 10, fonts.semibold);
+  para(`${input.project.name} · ${input.project.siteAddress}`, 9.5, fonts.regular, SOFT);
+  para(`Engineer: ${input.engineer.name}, registration ${input.engineer.registrationNumber} (${input.engineer.registrationBody})`, 9.5, fonts.regular, SOFT);
+  para(`Verify at ${input.approval.verifyUrl} · record hash ${input.approval.snapshotSha256}`, 8, fonts.regular, SOFT);
+
+  heading("Request");
+  para(`Provision: ${input.request.provision}${input.request.clauseRef ? ` (clause ${input.request.clauseRef})` : ""}`, 9.5, fonts.semibold);
+  para(`Site constraint: ${input.request.constraint}`);
+  para(`Proposal: ${input.request.proposal}`);
+
+  heading("Safety and performance principles");
+  for (const p of input.principles) {
+    para(`${p.label} — ${p.outcome}`, 9.5, fonts.semibold);
+    if (p.reasoning) para(p.reasoning, 9, fonts.regular, SOFT, 12);
+  }
+
+  heading("Conditions");
+  if (input.conditions.length) input.conditions.forEach((c, i) => para(`${i + 1}. ${c}`));
+  else para("None.");
+
+  heading("Calculations");
+  if (!input.calculations.length) para("None attached.");
+  for (const c of input.calculations) {
+    para(`${c.title} (engine ${c.engineVersion})`, 9.5, fonts.semibold);
+    for (const l of c.lines) para(l, 9, fonts.regular, INK, 12);
+  }
+
+  heading("Drawings this approval rests on");
+  for (const s of input.sheets) para(`${s.sheetNumber} rev ${s.revisionLabel} — ${s.title}\nSHA-256 ${s.sha256}`, 8.5);
+
+  heading("Caution");
+  para(input.caution, 8.5, fonts.regular, SOFT);
+}
+
+export async function buildApprovalPack(input: PackInput): Promise<PDFDocument> {
+  const doc = await PDFDocument.create();
+  doc.setTitle(`${input.approval.reference} approval v${input.approval.version}`);
+  doc.setAuthor(input.engineer.name);
+  doc.setCreator("Countersign");
+  doc.setProducer("Countersign");
+  doc.setCreationDate(input.approval.signedAt);
+  doc.setModificationDate(input.approval.signedAt);
+  const fonts = await embedFonts(doc);
+  for (const sheet of input.sheets) {
+    const source = await PDFDocument.load(sheet.pdf, { updateMetadata: false });
+    const wanted = (sheet.pages?.length ? sheet.pages : source.getPageIndices().map((i) => i + 1)).map((p) => p - 1);
+    const copied = await doc.copyPages(source, wanted);
+    for (const [i, page] of copied.entries()) {
+      doc.addPage(page);
+      const pageNo = wanted[i]! + 1;
+      for (const m of sheet.markups.filter((x) => x.page === pageNo)) drawMarkup(page, m, fonts);
+      await drawStamp(page, input, sheet, fonts);
+    }
+  }
+  recordPages(doc, input, fonts);
+  return doc;
+}
