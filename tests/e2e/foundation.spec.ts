@@ -69,8 +69,11 @@ test("a forgotten password is reset from the e-mailed link", async ({ page }) =>
   await page.getByLabel("Profession").selectOption("plumber");
   await page.getByRole("button", { name: "Create account" }).click();
   await page.getByRole("button", { name: "Sign out" }).click();
+  await expect(page.getByRole("heading", { name: "Sign in" })).toBeVisible();
 
   await page.getByRole("link", { name: "Forgot your password?" }).click();
+  // The sign-in page has an e-mail field too: wait for the reset page before typing.
+  await expect(page.getByRole("heading", { name: "Reset your password" })).toBeVisible();
   await page.getByLabel("E-mail address").fill(email);
   await page.getByRole("button", { name: "Send reset link" }).click();
   await expect(page.getByText("If an account exists for that address")).toBeVisible();
