@@ -41,7 +41,5 @@ export async function serveThumbnail(projectId: string, drawingId: string, revis
 
 export async function revisionDownloadUrl(projectId: string, drawingId: string, revisionId: string) {
   const rev = await findRevision(projectId, drawingId, revisionId);
-  const sheet = (rev as unknown as { drawingId: string }).drawingId;
-  void sheet;
-  return presignDownload(rev.objectKey, downloadName(rev.sha256.slice(0, 8), rev.label));
+  return presignDownload(rev.objectKey, downloadName(rev.drawing.sheetNumber, rev.label));
 }

@@ -51,12 +51,19 @@ export function objectSource(key: string, length: number): ByteSource {
 
 export async function openPdf(source: ByteSource): Promise<PDFDocumentProxy> {
   const lib = await pdfjs();
+  let fail: (error: unknown) => void = () => {};
+  const failed = new Promise<never>((_, reject) => (fail = reject));
+  failed.catch(() => {});
   class Transport extends lib.PDFDataRangeTransport {
     override requestDataRange(begin: number, end: number) {
       source.read(begin, end).then(
         // pdf.js may detach what it is given: hand it a buffer of its own.
         (chunk) => this.onDataRange(begin, chunk.slice()),
-        (error) => console.error("pdf range read failed:", (error as Error).message),
+        // pdf.js would wait for the bytes for ever: end the document instead.
+        (error) => {
+          fail(error);
+          void task.destroy();
+        },
       );
     }
   }
@@ -71,7 +78,7 @@ export async function openPdf(source: ByteSource): Promise<PDFDocumentProxy> {
     verbosity: 0,
     ...assets,
   });
-  return task.promise;
+  return Promise.race([task.promise, failed]);
 }
 
 export class PdfProblem extends Error {

@@ -2,7 +2,7 @@
 // and a thumbnail per page. Reads the PDF from object storage by ranges; progress is written to the revision
 // row as it goes, so the register can show it. Idempotent: running it again rewrites the same results.
 import { Op } from "sequelize";
-import { DrawingRevision, type PageSize, type TextRun } from "../../db/models";
+import { DrawingRevision, isDatabaseUnavailable, type PageSize, type TextRun } from "../../db/models";
 import { audit } from "../platform/audit.server";
 import { defineJob, whenJobsStart } from "../platform/jobs.server";
 import { putObject, StorageUnavailableError } from "../platform/storage.server";
@@ -65,11 +65,13 @@ export async function processRevision(revisionId: string, options: { final?: boo
     }
     await DrawingRevision.update({ processing: "done", pages, text, pageCount: pdf.numPages, processedPages: pdf.numPages }, { where: { id: revisionId } });
   } catch (error) {
+    // A PDF that cannot be read will not read better later: fail now. Outages are retried by the queue.
+    const transient = error instanceof StorageUnavailableError || isDatabaseUnavailable(error);
     await DrawingRevision.update(
-      { processing: options.final === false ? "queued" : "failed", processingError: explain(error) },
+      { processing: transient && options.final === false ? "queued" : "failed", processingError: explain(error) },
       { where: { id: revisionId } },
     );
-    throw error;
+    if (transient) throw error;
   } finally {
     await pdf?.destroy();
   }

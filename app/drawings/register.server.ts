@@ -123,10 +123,10 @@ export async function findRevision(projectId: string, drawingId: string | null, 
   const rev = await DrawingRevision.findOne({
     where,
     attributes: withText ? undefined : { exclude: ["text"] },
-    include: includeUsers,
+    include: [...includeUsers, { model: Drawing, as: "drawing", attributes: ["sheetNumber", "title"] }],
   });
   if (!rev) throw new DrawingError("No such revision in this project.", 404);
-  return rev;
+  return rev as DrawingRevision & { drawing: Drawing };
 }
 
 export async function getRevision(projectId: string, drawingId: string, revisionId: string): Promise<RevisionView> {

@@ -13,7 +13,7 @@ import { Op, UniqueConstraintError } from "sequelize";
 import { Drawing, DrawingRevision, sequelize, type PageSize, type RevisionStatus } from "../../db/models";
 import { audit } from "../platform/audit.server";
 import { env } from "../platform/env.server";
-import { boundaryOf, MultipartError, readMultipart } from "../platform/multipart.server";
+import { boundaryOf, drainBody, MultipartError, readMultipart } from "../platform/multipart.server";
 import { deleteObject, objectExists, putObject } from "../platform/storage.server";
 import type { Role } from "../projects/permissions";
 import { DrawingError, keys } from "./errors";
@@ -65,6 +65,8 @@ interface Piece {
 }
 
 const MB = 1024 * 1024;
+/** A refused upload's remaining bytes are read and dropped up to this much, so the browser sees the reason. */
+const DRAIN_LIMIT = 64 * MB;
 const sizeText = (n: number) => (n >= MB ? `${Math.round((n / MB) * 10) / 10} MB` : `${Math.ceil(n / 1024)} KB`);
 
 /** Counts and hashes the bytes passing through, and stops the upload once it is over the limit. */
@@ -99,6 +101,7 @@ async function receive(request: Request, dir: string): Promise<{ fields: UploadF
   if (!boundary || !request.body) throw new DrawingError("Send the PDF as a form upload (multipart/form-data).", 415, "not_multipart");
   const declared = Number(request.headers.get("content-length") ?? 0);
   if (declared > env.UPLOAD_MAX_BYTES + 256 * 1024) {
+    await drainBody(request.body, DRAIN_LIMIT);
     throw new DrawingError(`This file is larger than ${sizeText(env.UPLOAD_MAX_BYTES)}, the most Countersign accepts. Reduce it or split the set.`, 413, "too_large");
   }
   let fields: UploadFields | null = null;
@@ -115,6 +118,7 @@ async function receive(request: Request, dir: string): Promise<{ fields: UploadF
       },
     });
   } catch (error) {
+    await drainBody(request.body, DRAIN_LIMIT);
     if (error instanceof MultipartError) throw new DrawingError(error.message, error.status, "bad_upload");
     throw error;
   }

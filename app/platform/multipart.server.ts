@@ -73,7 +73,8 @@ export async function readMultipart(
   let file: { stream: PassThrough; done: Promise<void> } | null = null;
   let fileFailure: unknown = null;
 
-  const iterator = (Symbol.asyncIterator in body ? body : streamIterable(body as ReadableStream<Uint8Array>)) as AsyncIterable<Uint8Array>;
+  // A web stream's own iterator cancels it on an early exit; ours leaves it open so a refusal can be drained.
+  const iterator = body instanceof ReadableStream ? streamIterable(body) : body;
 
   async function writeFile(chunk: Buffer) {
     if (!file || chunk.length === 0) return;
@@ -183,7 +184,7 @@ export async function readMultipart(
       const more = await process();
       if (!more) break;
     }
-    if (state !== "done") throw new MultipartError("The upload ended before it was complete. Check your connection and try again.");
+    if ((state as string) !== "done") throw new MultipartError("The upload ended before it was complete. Check your connection and try again.");
   } catch (error) {
     const f = file as { stream: PassThrough; done: Promise<void> } | null;
     if (f && error !== fileFailure) {
@@ -204,7 +205,29 @@ async function* streamIterable(stream: ReadableStream<Uint8Array>) {
       yield value;
     }
   } finally {
+    // Left open on purpose: the caller may drain the rest so the client gets to read the answer.
     reader.releaseLock();
-    await stream.cancel().catch(() => {});
+  }
+}
+
+/**
+ * Reads and discards what is left of a refused body (up to `maxBytes`), so the client, still sending, gets a
+ * clean answer instead of a reset connection. Beyond that the body is cancelled.
+ */
+export async function drainBody(body: ReadableStream<Uint8Array> | null, maxBytes: number) {
+  if (!body || body.locked) return;
+  const reader = body.getReader();
+  let seen = 0;
+  try {
+    while (seen <= maxBytes) {
+      const { done, value } = await reader.read();
+      if (done) return;
+      seen += value.length;
+    }
+    await reader.cancel();
+  } catch {
+    // The client went away: nothing to answer.
+  } finally {
+    reader.releaseLock();
   }
 }

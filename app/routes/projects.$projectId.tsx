@@ -18,6 +18,8 @@ export async function loader({ context, request }: Route.LoaderArgs) {
 
 const TABS: { to: string; label: string; action: Action; end?: boolean }[] = [
   { to: "", label: "Overview", action: "project.view", end: true },
+  { to: "drawings", label: "Register", action: "drawings.view" },
+  { to: "transmittals", label: "Transmittals", action: "drawings.view" },
   { to: "members", label: "Members", action: "members.view" },
   { to: "settings", label: "Settings", action: "project.edit" },
 ];

@@ -1,0 +1,228 @@
+// Figures for docs/perf/drawings.md (run by tests/perf/run.sh, which starts the app for it):
+//  1. a large upload through the app vs a raw SDK PutObject of the same file, and the app's memory meanwhile;
+//  2. first visible page of an A1 sheet in the viewer vs pdf.js rendering the same page directly;
+//  3. compare of two A1 pages (cold and cached), with the server's own breakdown.
+import { createReadStream, createWriteStream, readFileSync, statSync } from "node:fs";
+import { createRequire } from "node:module";
+import { mkdtemp, readFile, rm } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { finished } from "node:stream/promises";
+import { PutObjectCommand, DeleteObjectCommand } from "@aws-sdk/client-s3";
+import { chromium } from "@playwright/test";
+import { PDFDocument, rgb, StandardFonts } from "pdf-lib";
+import { s3 } from "../../app/platform/storage.server";
+import { DrawingRevision, sequelize } from "../../db/models";
+import { A1_LANDSCAPE, until, upload } from "../support/drawings";
+import { makeProjectTeam, PASSWORD } from "../support/factory";
+import { Client } from "../support/http";
+
+const require = createRequire(import.meta.url);
+const APP_URL = process.env.APP_URL!;
+const APP_PID = Number(process.env.APP_PID);
+const MB = 1024 * 1024;
+const uploadMb = Number(process.env.BENCH_UPLOAD_MB ?? 500);
+const results: Record<string, unknown> = {};
+const log = (k: string, v: unknown) => {
+  results[k] = v;
+  console.log(k.padEnd(44), typeof v === "object" ? JSON.stringify(v) : v);
+};
+
+/** A valid one-page PDF of about `bytes`, written by hand and streamed (the filler is an unused stream object). */
+async function writeBigPdf(file: string, bytes: number) {
+  const out = createWriteStream(file);
+  let at = 0;
+  const offsets: number[] = [];
+  const w = (s: string | Buffer) => {
+    at += typeof s === "string" ? Buffer.byteLength(s) : s.length;
+    return out.write(s) ? Promise.resolve() : new Promise<void>((r) => out.once("drain", () => r()));
+  };
+  await w("%PDF-1.7\n%\xE2\xE3\xCF\xD3\n");
+  const content = "0 0 0 RG 4 w 100 100 2184 1484 re S BT /F1 48 Tf 150 1500 Td (Large upload benchmark) Tj ET";
+  const objs = [
+    "<< /Type /Catalog /Pages 2 0 R >>",
+    "<< /Type /Pages /Kids [3 0 R] /Count 1 >>",
+    `<< /Type /Page /Parent 2 0 R /MediaBox [0 0 ${A1_LANDSCAPE[0]} ${A1_LANDSCAPE[1]}] /Contents 4 0 R /Resources << /Font << /F1 << /Type /Font /Subtype /Type1 /BaseFont /Helvetica >> >> >> >>`,
+    `<< /Length ${content.length} >>\nstream\n${content}\nendstream`,
+  ];
+  for (let i = 0; i < objs.length; i++) {
+    offsets.push(at);
+    await w(`${i + 1} 0 obj\n${objs[i]}\nendobj\n`);
+  }
+  const filler = bytes - at - 400;
+  offsets.push(at);
+  await w(`5 0 obj\n<< /Length ${filler} >>\nstream\n`);
+  const chunk = Buffer.alloc(4 * MB);
+  let seed = Date.now() >>> 0;
+  for (let left = filler; left > 0; left -= chunk.length) {
+    for (let i = 0; i < chunk.length; i += 4) chunk.writeUInt32LE((seed = (seed * 1664525 + 1013904223) >>> 0), i);
+    await w(left >= chunk.length ? chunk : chunk.subarray(0, left));
+  }
+  await w("\nendstream\nendobj\n");
+  const xref = at;
+  await w(`xref\n0 6\n0000000000 65535 f \n${offsets.map((o) => `${String(o).padStart(10, "0")} 00000 n \n`).join("")}trailer\n<< /Size 6 /Root 1 0 R >>\nstartxref\n${xref}\n%%EOF\n`);
+  out.end();
+  await finished(out);
+}
+
+function rssMb(pid: number) {
+  try {
+    const status = readFileSync(`/proc/${pid}/status`, "utf8");
+    return Math.round(Number(status.match(/VmRSS:\s+(\d+)/)![1]) / 1024);
+  } catch {
+    return NaN;
+  }
+}
+
+async function streamUpload(client: Client, projectId: string, file: string, sheetNumber: string) {
+  const boundary = "----countersign-bench";
+  const head = Buffer.from(`--${boundary}\r\nContent-Disposition: form-data; name="sheetNumber"\r\n\r\n${sheetNumber}\r\n--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="big.pdf"\r\nContent-Type: application/pdf\r\n\r\n`);
+  const tail = Buffer.from(`\r\n--${boundary}--\r\n`);
+  const size = statSync(file).size;
+  const body = new ReadableStream<Uint8Array>({
+    async start(c) {
+      c.enqueue(head);
+      for await (const chunk of createReadStream(file, { highWaterMark: MB })) c.enqueue(chunk as Buffer);
+      c.enqueue(tail);
+      c.close();
+    },
+  });
+  const res = await client.request(`/projects/${projectId}/drawings/upload`, {
+    method: "POST",
+    body,
+    headers: { "content-type": `multipart/form-data; boundary=${boundary}`, "content-length": String(head.length + size + tail.length), accept: "application/json" },
+    duplex: "half",
+  } as RequestInit);
+  return { status: res.status, body: await res.json() };
+}
+
+/** A heavy A1 sheet: a grid of pipe runs, fittings and labels, like a services layout. */
+async function heavyA1(seed: number, extra = false) {
+  const doc = await PDFDocument.create();
+  const font = await doc.embedFont(StandardFonts.Helvetica);
+  const page = doc.addPage(A1_LANDSCAPE);
+  let s = seed;
+  const rnd = () => ((s = (s * 1103515245 + 12345) >>> 0) / 2 ** 32);
+  for (let i = 0; i < 4000; i++) {
+    const x = 60 + rnd() * 2200, y = 60 + rnd() * 1500;
+    page.drawLine({ start: { x, y }, end: { x: x + (rnd() - 0.5) * 200, y: y + (rnd() - 0.5) * 200 }, thickness: 0.5 + rnd() * 2, color: rgb(0, 0, 0) });
+  }
+  for (let i = 0; i < 600; i++) page.drawText(`DN${15 + Math.floor(rnd() * 40)} run ${i}`, { x: 60 + rnd() * 2200, y: 60 + rnd() * 1500, size: 7, font });
+  if (extra) page.drawRectangle({ x: 1500, y: 900, width: 300, height: 150, borderWidth: 4, borderColor: rgb(0, 0, 0) });
+  return doc.save();
+}
+
+async function main() {
+  const team = await makeProjectTeam();
+  const client = new Client(APP_URL);
+  await client.signIn(team.users.architect.email, PASSWORD);
+  const dir = await mkdtemp(path.join(tmpdir(), "cs-bench-"));
+  try {
+    // 1. Upload through the app vs raw SDK.
+    const file = path.join(dir, "big.pdf");
+    await writeBigPdf(file, uploadMb * MB);
+    const size = statSync(file).size;
+    log("upload.file_mb", Math.round(size / MB));
+    const rawKey = `bench/raw-${Date.now()}.pdf`;
+    let t0 = performance.now();
+    await s3.send(new PutObjectCommand({ Bucket: process.env.S3_BUCKET, Key: rawKey, Body: createReadStream(file), ContentLength: size, ContentType: "application/pdf" }));
+    const rawS = (performance.now() - t0) / 1000;
+    await s3.send(new DeleteObjectCommand({ Bucket: process.env.S3_BUCKET, Key: rawKey }));
+    log("upload.raw_sdk_put_mb_per_s", Math.round(size / MB / rawS));
+    const idle = rssMb(APP_PID);
+    let peak = idle;
+    const sampler = setInterval(() => (peak = Math.max(peak, rssMb(APP_PID))), 100);
+    t0 = performance.now();
+    const res = await streamUpload(client, team.project.id, file, "BENCH-1");
+    const appS = (performance.now() - t0) / 1000;
+    clearInterval(sampler);
+    if (res.status !== 201) throw new Error(`upload failed: ${JSON.stringify(res.body)}`);
+    log("upload.through_app_mb_per_s", Math.round(size / MB / appS));
+    log("upload.through_app_seconds", Math.round(appS * 10) / 10);
+    log("upload.raw_sdk_seconds", Math.round(rawS * 10) / 10);
+    log("upload.app_rss_mb_idle_vs_peak", { idle, peak });
+
+    // 2. Viewer first page vs pdf.js directly, same A1 sheet, same width, same browser.
+    const a = await heavyA1(1);
+    const b = await heavyA1(1, true);
+    const ua = await upload(client, team.project.id, a, { sheetNumber: "BENCH-A1", title: "Heavy A1" });
+    const ub = await upload(client, team.project.id, b, { sheetNumber: "BENCH-A1" });
+    const [ra, rb] = [ua.body.stored[0], ub.body.stored[0]];
+    for (const r of [ra, rb]) await until(async () => (await DrawingRevision.findByPk(r.revisionId))?.processing === "done", 60_000);
+    log("a1.sheet_kb", Math.round(a.length / 1024));
+
+    const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu"] });
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    await context.addCookies([{ name: "countersign_session", value: client.sessionCookie!, url: APP_URL }]);
+    const page = await context.newPage();
+    const viewerMs: number[] = [];
+    for (let i = 0; i < 3; i++) {
+      await page.goto(`${APP_URL}/projects/${team.project.id}/drawings/${ra.drawingId}?rev=${ra.revisionId}`);
+      const ms = await page.evaluate(async () => {
+        const start = performance.timeOrigin;
+        for (;;) {
+          const c = document.querySelector<HTMLCanvasElement>(".react-pdf__Page__canvas");
+          if (c && c.width > 0 && c.closest(".react-pdf__Page")?.getAttribute("data-page-number")) {
+            // wait for the paint after the canvas got its pixels
+            await new Promise((r) => requestAnimationFrame(() => r(null)));
+            return Date.now() - start;
+          }
+          await new Promise((r) => setTimeout(r, 10));
+        }
+      });
+      viewerMs.push(Math.round(ms));
+    }
+    log("viewer.first_page_ms_from_navigation", viewerMs);
+
+    // pdf.js alone: the same build of pdf.js, the same bytes, the same canvas width, no app around it.
+    const pdfjsDir = path.dirname(require.resolve("pdfjs-dist/package.json"));
+    await page.route("http://bench.local/**", async (route) => {
+      const url = new URL(route.request().url());
+      if (url.pathname === "/") return route.fulfill({ contentType: "text/html", body: "<!doctype html><body></body>" });
+      if (url.pathname === "/sheet.pdf") return route.fulfill({ contentType: "application/pdf", body: Buffer.from(a) });
+      return route.fulfill({ contentType: "text/javascript", body: await readFile(path.join(pdfjsDir, "build", path.basename(url.pathname))) });
+    });
+    const directMs: number[] = [];
+    for (let i = 0; i < 3; i++) {
+      await page.goto("http://bench.local/");
+      directMs.push(
+        await page.evaluate(async () => {
+          const t = performance.now();
+          const lib: any = await import("http://bench.local/pdf.min.mjs" as string);
+          lib.GlobalWorkerOptions.workerSrc = "http://bench.local/pdf.worker.min.mjs";
+          const pdf = await lib.getDocument("http://bench.local/sheet.pdf").promise;
+          const p = await pdf.getPage(1);
+          const vp1 = p.getViewport({ scale: 1 });
+          const vp = p.getViewport({ scale: (1280 - 340) / vp1.width * devicePixelRatio });
+          const canvas = document.createElement("canvas");
+          canvas.width = vp.width;
+          canvas.height = vp.height;
+          document.body.append(canvas);
+          await p.render({ canvasContext: canvas.getContext("2d"), viewport: vp }).promise;
+          return Math.round(performance.now() - t);
+        }),
+      );
+    }
+    log("pdfjs_direct.first_page_ms", directMs);
+    await browser.close();
+
+    // 3. Compare two A1 pages.
+    t0 = performance.now();
+    const cold = await client.json(`/api/projects/${team.project.id}/drawings/${ra.drawingId}/compare?from=${ra.revisionId}&to=${rb.revisionId}`);
+    const coldMs = Math.round(performance.now() - t0);
+    t0 = performance.now();
+    await client.json(`/api/projects/${team.project.id}/drawings/${ra.drawingId}/compare?from=${ra.revisionId}&to=${rb.revisionId}`);
+    const warmMs = Math.round(performance.now() - t0);
+    log("compare.a1_cold_ms", coldMs);
+    log("compare.a1_cached_ms", warmMs);
+    log("compare.server_breakdown_ms", cold.body.visual.timingsMs);
+    log("compare.render_px", `${cold.body.visual.widthPx}x${cold.body.visual.heightPx}`);
+    log("compare.regions_found", cold.body.visual.regions.length);
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+    await sequelize.close();
+  }
+  console.log("\nJSON", JSON.stringify(results));
+}
+
+await main();
