@@ -1,7 +1,7 @@
 // Loads the demo scenario once (skips when the demo manager already exists). `tsx db/seed.ts`
 import { hashPassword } from "../app/accounts/password.server";
-import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT } from "./demo";
-import { Project, ProjectMember, sequelize, User } from "./models";
+import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT, DEMO_REQUESTS } from "./demo";
+import { DeviationRequest, Project, ProjectMember, RequestVersion, sequelize, User } from "./models";
 
 try {
   const manager = DEMO_PEOPLE.find((p) => p.role === "manager")!;
@@ -38,6 +38,34 @@ try {
     });
     console.log("demo data: loaded");
   }
+  await seedRequests();
 } finally {
   await sequelize.close();
+}
+
+/** The demo requests, added once (also to a demo project loaded before requests existed). */
+async function seedRequests() {
+  const project = await Project.findOne({ where: { name: DEMO_PROJECT.name } });
+  if (!project || (await DeviationRequest.count({ where: { projectId: project.id } }))) return;
+  const byRole = async (role: string) => (await User.findOne({ where: { email: DEMO_PEOPLE.find((p) => p.role === role)!.email } }))!;
+  const [plumber, engineer] = [await byRole("site_plumber"), await byRole("engineer")];
+  await sequelize.transaction(async (transaction) => {
+    for (const [i, r] of DEMO_REQUESTS.entries()) {
+      const sent = r.state !== "draft";
+      const submittedAt = sent ? new Date(Date.now() - 2 * 86_400_000) : null;
+      const request = await DeviationRequest.create(
+        {
+          projectId: project.id, number: i + 1, title: r.title, provision: r.provision, clauseRef: r.clauseRef, state: r.state,
+          assigneeId: sent ? engineer.id : null, submittedAt, dueAt: sent ? new Date(Date.now() + 3 * 86_400_000) : null,
+          stateChangedAt: submittedAt ?? new Date(), createdById: plumber.id, lockVersion: sent ? 2 : 0,
+        },
+        { transaction },
+      );
+      await RequestVersion.create(
+        { requestId: request.id, n: 1, title: r.title, provision: r.provision, clauseRef: r.clauseRef, siteConstraint: r.siteConstraint, proposal: r.proposal, measurements: r.measurements, createdById: plumber.id, submittedAt },
+        { transaction },
+      );
+    }
+  });
+  console.log("demo data: requests loaded");
 }

@@ -38,6 +38,7 @@ describe("request workflow", () => {
       for (const isRequester of [true, false]) {
         expect(availableMoves("withdrawn", { role, isRequester })).toEqual([]);
         expect(availableMoves("superseded", { role, isRequester })).toEqual([]);
+        expect(availableMoves("closed", { role, isRequester })).toEqual([]);
       }
     }
   });

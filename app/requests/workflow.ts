@@ -11,6 +11,7 @@ export const REQUEST_STATES = [
   "decided",
   "withdrawn",
   "superseded",
+  "closed",
 ] as const;
 export type RequestState = (typeof REQUEST_STATES)[number];
 
@@ -23,9 +24,10 @@ export const STATE_LABELS: Record<RequestState, string> = {
   decided: "Decided",
   withdrawn: "Withdrawn",
   superseded: "Superseded",
+  closed: "Installed as approved",
 };
 
-export const REQUEST_ACTIONS = ["submit", "start_review", "request_info", "resubmit", "decide", "withdraw", "supersede"] as const;
+export const REQUEST_ACTIONS = ["submit", "start_review", "request_info", "resubmit", "decide", "withdraw", "supersede", "close"] as const;
 export type RequestAction = (typeof REQUEST_ACTIONS)[number];
 
 export const ACTION_LABELS: Record<RequestAction, string> = {
@@ -36,6 +38,7 @@ export const ACTION_LABELS: Record<RequestAction, string> = {
   decide: "Record decision",
   withdraw: "Withdraw",
   supersede: "Mark superseded",
+  close: "Record installed as approved",
 };
 
 interface Move {
@@ -55,6 +58,8 @@ export const MOVES: Record<RequestAction, Move> = {
   decide: { from: ["in_review"], to: "decided", by: ["engineer"] },
   withdraw: { from: [...OPEN, "decided"], to: "withdrawn", by: ["requester", "manager"] },
   supersede: { from: ["decided"], to: "superseded", by: ["engineer", "manager"] },
+  // Recorded from the site page once work is installed as the signed approval says.
+  close: { from: ["decided"], to: "closed", by: ["site_plumber"] },
 };
 
 export interface Actor {

@@ -19,6 +19,7 @@ export function Shell({ user, children }: { user: CurrentUser | null; children: 
           {user ? (
             <nav aria-label="Main" className="flex flex-1 items-center gap-1 text-sm font-medium">
               <NavItem to="/projects">My projects</NavItem>
+              <NavItem to="/requests">Requests</NavItem>
               <span className="flex-1" />
               <NavItem to="/profile">
                 <span className="inline-flex items-center gap-1.5">

@@ -2,10 +2,12 @@
 // bundled server alike. Add new migrations at the end.
 import * as foundation from "./2026.12.01T00.00.00.foundation";
 import * as drawings from "./2026.12.01T01.00.00.drawings";
+import * as requests from "./2026.12.01T02.00.00.requests";
 import * as signing from "./2026.12.01T05.00.00.signing";
 
 export const MIGRATIONS = [
   { name: "2026.12.01T00.00.00.foundation", ...foundation },
   { name: "2026.12.01T01.00.00.drawings", ...drawings },
+  { name: "2026.12.01T02.00.00.requests", ...requests },
   { name: "2026.12.01T05.00.00.signing", ...signing },
 ];

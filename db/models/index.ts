@@ -40,6 +40,32 @@ TransmittalRecipient.belongsTo(Transmittal, { as: "transmittal", foreignKey: "tr
 export { Drawing, DrawingRevision, Transmittal, TransmittalItem, TransmittalRecipient };
 export { PROCESSING_STATES, REVISION_STATUSES, type PageSize, type ProcessingState, type RevisionStatus, type TextRun } from "./drawing-revision";
 
+// Deviation requests and their review.
+import { AssessmentRow } from "./assessment";
+import { Attachment } from "./attachment";
+import { Comment } from "./comment";
+import { Decision } from "./decision";
+import { DeviationRequest } from "./deviation-request";
+import { ProjectMute } from "./project-mute";
+import { RequestPin } from "./request-pin";
+import { RequestVersion } from "./request-version";
+
+DeviationRequest.belongsTo(Project, { as: "project", foreignKey: "projectId" });
+DeviationRequest.belongsTo(User, { as: "assignee", foreignKey: "assigneeId" });
+DeviationRequest.belongsTo(User, { as: "createdBy", foreignKey: "createdById" });
+DeviationRequest.hasMany(RequestVersion, { as: "versions", foreignKey: "requestId" });
+RequestVersion.belongsTo(User, { as: "createdBy", foreignKey: "createdById" });
+Attachment.belongsTo(User, { as: "uploadedBy", foreignKey: "uploadedById" });
+Comment.belongsTo(User, { as: "author", foreignKey: "authorId" });
+Comment.hasMany(Attachment, { as: "attachments", foreignKey: "commentId" });
+Decision.hasMany(AssessmentRow, { as: "assessments", foreignKey: "decisionId" });
+Decision.belongsTo(User, { as: "decidedBy", foreignKey: "decidedById" });
+
+export { AssessmentRow, Attachment, Comment, Decision, DeviationRequest, ProjectMute, RequestPin, RequestVersion };
+export type { Measurement } from "./request-version";
+export type { Condition } from "./decision";
+export type { EvidenceLink } from "./assessment";
+
 // Engineer verification and signing identities.
 import { RegistrationVerification } from "./registration-verification";
 import { SigningKey } from "./signing-key";

@@ -33,6 +33,7 @@ const CASES: Case[] = [
   { file: "projects.new.tsx", path: () => "/projects/new", method: "GET", needs: "signedIn" },
   { file: "api.me.ts", path: () => "/api/me", method: "GET", needs: "signedIn", api: true },
   { file: "api.projects.ts", path: () => "/api/projects", method: "GET", needs: "signedIn", api: true },
+  { file: "requests._index.tsx", path: () => "/requests", method: "GET", needs: "signedIn" },
   { file: "projects.$projectId.tsx", path: (p) => `/projects/${p}`, method: "GET", needs: "project.view" },
   { file: "projects.$projectId._index.tsx", path: (p) => `/projects/${p}`, method: "GET", needs: "project.view" },
   { file: "projects.$projectId.members.tsx", path: (p) => `/projects/${p}/members`, method: "GET", needs: "members.view" },

@@ -21,7 +21,7 @@ function verifyForm(file?: { bytes: Uint8Array; name: string; type: string }) {
   form.set("registrationNumber", "ENG-4242");
   form.set("registrationBody", "Test board");
   form.set("checkedOn", "2026-11-30");
-  if (file) form.set("evidence", new Blob([file.bytes], { type: file.type }), file.name);
+  if (file) form.set("evidence", new Blob([new Uint8Array(file.bytes)], { type: file.type }), file.name);
   return form;
 }
 
