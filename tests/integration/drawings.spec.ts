@@ -268,7 +268,8 @@ describe("issuing, superseding and transmittals", () => {
     expect(api.body.drawing.current.id).toBe(p2!.revisionId);
 
     for (const who of ["engineer", "site_plumber"] as const) {
-      const mail = await waitForMail(team.users[who].email, /Transmittal \d+: 1 revision\(s\) accepted for construction/);
+      // The earlier P1 transmittal has the same subject: wait for the one about P2.
+      const mail = await waitForMail(team.users[who].email, /Transmittal \d+: 1 revision\(s\) accepted for construction/, 10_000, /revision P2/);
       expect(mail.text).toContain(`${sheet} revision P2`);
       expect(mail.text).toContain("Discharge route changed on site");
       expect(linkIn(mail, "/transmittals/")).toBe(transmittalPath);

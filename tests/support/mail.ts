@@ -9,12 +9,13 @@ export interface FakeMail {
   to: { address: string }[];
 }
 
-export async function waitForMail(to: string, match: RegExp = /./, timeoutMs = 10_000): Promise<FakeMail> {
+/** The newest mail to `to` whose subject matches (and whose text matches `text`, when given), waiting for it. */
+export async function waitForMail(to: string, match: RegExp = /./, timeoutMs = 10_000, text?: RegExp): Promise<FakeMail> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const res = await fetch(`${MAIL_API_URL}/api/email`);
     const all = (await res.json()) as FakeMail[];
-    const found = all.reverse().find((m) => m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()) && match.test(m.subject));
+    const found = all.reverse().find((m) => m.to.some((t) => t.address.toLowerCase() === to.toLowerCase()) && match.test(m.subject) && (!text || text.test(m.text)));
     if (found) return found;
     await new Promise((r) => setTimeout(r, 150));
   }
