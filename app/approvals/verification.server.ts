@@ -6,6 +6,7 @@ import { Op } from "sequelize";
 import { ProjectMember, RegistrationVerification, sequelize, SigningKey, User } from "../../db/models";
 import { audit } from "../platform/audit.server";
 import { env } from "../platform/env.server";
+import type { SmallFile } from "../platform/small-upload.server";
 import { deleteObject, putObject } from "../platform/storage.server";
 import { decryptPrivateKey, encryptPrivateKey, issueSigningIdentity, type SigningIdentity } from "./identity.server";
 
@@ -18,21 +19,8 @@ export class VerificationError extends Error {
   }
 }
 
-export interface Evidence {
-  filename: string;
-  contentType: string;
-  bytes: Buffer;
-}
-
+export type Evidence = SmallFile;
 export const EVIDENCE_MAX_BYTES = 10 * 1024 * 1024;
-
-/** PDF, PNG or JPEG, judged by the file's first bytes, not its name. */
-export function evidenceType(bytes: Buffer): string | null {
-  if (bytes.subarray(0, 5).toString("latin1") === "%PDF-") return "application/pdf";
-  if (bytes.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))) return "image/png";
-  if (bytes[0] === 0xff && bytes[1] === 0xd8 && bytes[2] === 0xff) return "image/jpeg";
-  return null;
-}
 
 async function engineerMember(projectId: string, memberId: string) {
   const member = await ProjectMember.findOne({ where: { id: memberId, projectId }, include: [{ model: User, as: "user" }] });

@@ -2,6 +2,7 @@
 // previous accepted one), records the transmittal with its items and recipients, and audits it all; after the
 // commit each recipient gets an e-mail through the job queue (retried with backoff). Recipients see what was
 // issued to them, and what is new since they last looked.
+import { flagApprovalsRestingOn } from "../approvals/supersession.server";
 import { Op } from "sequelize";
 import { Drawing, DrawingRevision, ProjectMember, sequelize, Transmittal, TransmittalItem, TransmittalRecipient, User } from "../../db/models";
 import { audit } from "../platform/audit.server";
@@ -67,6 +68,7 @@ export async function issueRevisions(actor: { id: string; name: string }, projec
             { action: "revision.superseded", actorId: actor.id, projectId, subjectType: "drawing_revision", subjectId: previous.id, data: { label: previous.label, by: r.id, byLabel: r.label } },
             transaction,
           );
+          await flagApprovalsRestingOn(projectId, [previous.id], transaction);
         }
         await DrawingRevision.update({ status: "accepted", supersedesId: previous?.id ?? null, issuedById: actor.id, issuedAt: now }, { where: { id: r.id }, transaction });
       } else if (input.status === "for_review" && r.status !== "accepted") {

@@ -256,8 +256,14 @@ function propagate(
 }
 
 function solve(model: NetworkModel, sizing: Sizing, flows: { flowLps: Float64Array; nodeFlowLps: Float64Array }): Solved {
-  const losses = model.segments.map((s, k) => lossFor(s, sizing.pipe[k], sizing.boreMm[k], flows.flowLps[k]));
-  const lossKpa = Float64Array.from(losses, (l) => l.totalLossKpa);
+  // Plain loops: typed-array `from` with a mapping function goes through the iterator protocol and is slow.
+  const count = model.segments.length;
+  const losses: SegmentLoss[] = new Array(count);
+  const lossKpa = new Float64Array(count);
+  for (let k = 0; k < count; k++) {
+    losses[k] = lossFor(model.segments[k], sizing.pipe[k], sizing.boreMm[k], flows.flowLps[k]);
+    lossKpa[k] = losses[k].totalLossKpa;
+  }
   const hl = heaterLoss(model, flows.nodeFlowLps);
   const pressureKpa = new Float64Array(model.nodeIds.length);
   propagate(model, lossKpa, hl, pressureKpa, 0, model.order.length);
@@ -286,10 +292,11 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
     if (!Number.isFinite(v) || v <= 0) throw new RangeError(`${name} must be greater than zero (got ${v})`);
   }
   const model = buildNetworkModel(network, options);
-  const sizing: Sizing = {
-    pipe: model.segments.map((s) => s.pipe),
-    boreMm: Float64Array.from(model.segments, (s) => s.boreMm),
-  };
+  const sizing: Sizing = { pipe: new Array(model.segments.length), boreMm: new Float64Array(model.segments.length) };
+  for (let k = 0; k < model.segments.length; k++) {
+    sizing.pipe[k] = model.segments[k].pipe;
+    sizing.boreMm[k] = model.segments[k].boreMm;
+  }
   const flows = computeFlows(model);
   const solved = solve(model, sizing, flows);
   const { nodeIds, order, parentNode, parentSeg, segments } = model;
@@ -472,7 +479,9 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
     };
   });
 
-  const nodes: NodeResult[] = Array.from(order, (v) => {
+  const nodes: NodeResult[] = new Array(n);
+  for (let k = 0; k < n; k++) {
+    const v = order[k];
     const node: NodeResult = {
       nodeId: nodeIds[v],
       parentNodeId: parentNode[v] === -1 ? null : nodeIds[parentNode[v]],
@@ -484,8 +493,8 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
     };
     if (!Number.isNaN(model.prvSettingKpa[v])) node.prvSettingKpa = model.prvSettingKpa[v];
     if (v === model.heaterNode) node.heaterOutletPressureKpa = solved.pressureKpa[v] - solved.heaterLossKpa;
-    return node;
-  });
+    nodes[k] = node;
+  }
 
   const designFlowMethod: { method: string; source: string }[] = [];
   if (model.outlets.some((o) => o.basis === "loadingUnits")) designFlowMethod.push(DESIGN_FLOW_METHOD.loadingUnits);

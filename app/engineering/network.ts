@@ -270,8 +270,10 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
       issue(["segments", i, "id"], `Segment ${i + 1} needs an id`);
       continue;
     }
-    if (segIds.has(s.id)) issue(segPath(i, "id"), `${segmentName(s, i)} appears more than once`, s.id);
+    // One hash per id: the set grows unless the id was already there.
+    const seen = segIds.size;
     segIds.add(s.id);
+    if (segIds.size === seen) issue(segPath(i, "id"), `${segmentName(s, i)} appears more than once`, s.id);
     let bad = false;
     if (typeof s.fromNodeId !== "string" || s.fromNodeId === "") {
       issue(segPath(i, "fromNodeId"), `${segmentName(s, i)} needs a from-node`, s.id);
@@ -371,16 +373,16 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   const root = 0;
   const parentSeg = new Int32Array(n).fill(-1);
   const parentNode = new Int32Array(n).fill(-1);
+  const toNodePath = (s: ModelSegment) => ["segments", s.inputIndex, "toNodeId"];
   segments.forEach((s, k) => {
-    const path = ["segments", s.inputIndex, "toNodeId"];
     if (s.to === root) {
-      issue(path, `Segment "${s.id}" feeds the supply node "${rootId}"; the supply must be the start of the network`, s.id);
+      issue(toNodePath(s), `Segment "${s.id}" feeds the supply node "${rootId}"; the supply must be the start of the network`, s.id);
       return;
     }
     const existing = parentSeg[s.to];
     if (existing !== -1) {
       issue(
-        path,
+        toNodePath(s),
         `Node "${nodeIds[s.to]}" is fed by two segments ("${segments[existing].id}" and "${s.id}"); the network must be a tree`,
         s.id,
       );
@@ -535,48 +537,49 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
 
   const outlets: ModelOutlet[] = [];
   const outletIndex = new Map<string, number>();
+  // Names for messages are built only when there is a problem to report.
+  const outletName = (o: NetworkOutletInput | undefined, i: number) => `Outlet "${o?.id ?? i}"`;
   outletsIn.forEach((o, i) => {
-    const name = `Outlet "${o?.id ?? i}"`;
     if (!o || typeof o.id !== "string" || o.id === "") {
       issue(["outlets", i, "id"], `Outlet ${i + 1} needs an id`);
       return;
     }
     if (outletIndex.has(o.id)) {
-      issue(["outlets", i, "id"], `${name} appears more than once`, o.id);
+      issue(["outlets", i, "id"], `${outletName(o, i)} appears more than once`, o.id);
       return;
     }
     if (!known(o.nodeId)) {
-      issue(["outlets", i, "nodeId"], `${name} sits at node "${String(o.nodeId)}", which is not in the network`, o.id);
+      issue(["outlets", i, "nodeId"], `${outletName(o, i)} sits at node "${String(o.nodeId)}", which is not in the network`, o.id);
       return;
     }
     const node = nodeIndex.get(o.nodeId)!;
     if (node === root) {
-      issue(["outlets", i, "nodeId"], `${name} sits at the supply node; put it at the end of a segment`, o.id);
+      issue(["outlets", i, "nodeId"], `${outletName(o, i)} sits at the supply node; put it at the end of a segment`, o.id);
       return;
     }
     let statedFlowLps = 0;
     let loadingUnits = 0;
     if (o.flowLps !== undefined) {
       if (!isFiniteNumber(o.flowLps) || o.flowLps < 0) {
-        issue(["outlets", i, "flowLps"], `${name} has a negative or invalid flow`, o.id);
+        issue(["outlets", i, "flowLps"], `${outletName(o, i)} has a negative or invalid flow`, o.id);
         return;
       }
       statedFlowLps = o.flowLps;
     } else if (o.loadingUnits !== undefined) {
       if (!isFiniteNumber(o.loadingUnits) || o.loadingUnits < 0) {
-        issue(["outlets", i, "loadingUnits"], `${name} has negative or invalid loading units`, o.id);
+        issue(["outlets", i, "loadingUnits"], `${outletName(o, i)} has negative or invalid loading units`, o.id);
         return;
       }
       loadingUnits = o.loadingUnits;
     } else if (o.fixture !== undefined) {
       const demand = FIXTURE_DEMAND[o.fixture];
       if (!demand) {
-        issue(["outlets", i, "fixture"], `${name} has an unknown fixture type "${String(o.fixture)}"`, o.id);
+        issue(["outlets", i, "fixture"], `${outletName(o, i)} has an unknown fixture type "${String(o.fixture)}"`, o.id);
         return;
       }
       loadingUnits = demand.loadingUnits;
     } else {
-      issue(["outlets", i, "flowLps"], `${name} needs a flow, loading units or a fixture type`, o.id);
+      issue(["outlets", i, "flowLps"], `${outletName(o, i)} needs a flow, loading units or a fixture type`, o.id);
       return;
     }
     outletIndex.set(o.id, outlets.length);
@@ -592,30 +595,30 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
 
   const mixingPoints: ModelMixingPoint[] = [];
   const mixingIds = new Set<string>();
+  const mixingName = (m: MixingPointInput | undefined, i: number) => `Mixing point "${m?.id ?? i}"`;
   mixingIn.forEach((m, i) => {
-    const name = `Mixing point "${m?.id ?? i}"`;
     if (!m || typeof m.id !== "string" || m.id === "") {
       issue(["mixingPoints", i, "id"], `Mixing point ${i + 1} needs an id`);
       return;
     }
     if (mixingIds.has(m.id)) {
-      issue(["mixingPoints", i, "id"], `${name} appears more than once`, m.id);
+      issue(["mixingPoints", i, "id"], `${mixingName(m, i)} appears more than once`, m.id);
       return;
     }
     mixingIds.add(m.id);
     const hot = outletIndex.get(m.hotOutletId);
     const cold = outletIndex.get(m.coldOutletId);
-    if (hot === undefined) issue(["mixingPoints", i, "hotOutletId"], `${name} refers to unknown outlet "${String(m.hotOutletId)}"`, m.id);
-    if (cold === undefined) issue(["mixingPoints", i, "coldOutletId"], `${name} refers to unknown outlet "${String(m.coldOutletId)}"`, m.id);
+    if (hot === undefined) issue(["mixingPoints", i, "hotOutletId"], `${mixingName(m, i)} refers to unknown outlet "${String(m.hotOutletId)}"`, m.id);
+    if (cold === undefined) issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)} refers to unknown outlet "${String(m.coldOutletId)}"`, m.id);
     if (hot === undefined || cold === undefined) return;
     if (hot === cold) {
-      issue(["mixingPoints", i, "coldOutletId"], `${name} joins outlet "${m.hotOutletId}" to itself`, m.id);
+      issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)} joins outlet "${m.hotOutletId}" to itself`, m.id);
       return;
     }
     if (treeOk) {
       const serviceAt = (o: number) => segments[parentSeg[outlets[o].node]].service;
-      if (serviceAt(hot) !== "hot") issue(["mixingPoints", i, "hotOutletId"], `${name}: outlet "${m.hotOutletId}" is not on a hot pipe`, m.id);
-      if (serviceAt(cold) !== "cold") issue(["mixingPoints", i, "coldOutletId"], `${name}: outlet "${m.coldOutletId}" is not on a cold pipe`, m.id);
+      if (serviceAt(hot) !== "hot") issue(["mixingPoints", i, "hotOutletId"], `${mixingName(m, i)}: outlet "${m.hotOutletId}" is not on a hot pipe`, m.id);
+      if (serviceAt(cold) !== "cold") issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)}: outlet "${m.coldOutletId}" is not on a cold pipe`, m.id);
     }
     mixingPoints.push({ id: m.id, inputIndex: i, hot, cold });
   });

@@ -108,7 +108,12 @@ const cache = new Map<number, WaterProperties>();
 const CACHE_LIMIT = 512;
 
 /** Properties of liquid water at tempC (°C) and one atmosphere. Throws a RangeError outside 1–95 °C. */
+let lastTempC = NaN;
+let lastProps: WaterProperties | undefined;
+
 export function waterProperties(tempC: number): WaterProperties {
+  // A network asks for the same one or two temperatures segment after segment: answer a repeat at once.
+  if (tempC === lastTempC) return lastProps!;
   requireFinite("tempC", tempC);
   if (tempC < WATER_TEMPERATURE_RANGE_C.min || tempC > WATER_TEMPERATURE_RANGE_C.max) {
     throw new RangeError(
@@ -116,7 +121,11 @@ export function waterProperties(tempC: number): WaterProperties {
     );
   }
   const hit = cache.get(tempC);
-  if (hit) return hit;
+  if (hit) {
+    lastTempC = tempC;
+    lastProps = hit;
+    return hit;
+  }
   const temperatureK = tempC + KELVIN_OFFSET;
   const { specificVolumeM3Kg, cpKjPerKgK } = if97Region1(ATMOSPHERE_MPA, temperatureK);
   const densityKgM3 = 1 / specificVolumeM3Kg;
@@ -129,5 +138,7 @@ export function waterProperties(tempC: number): WaterProperties {
   });
   if (cache.size >= CACHE_LIMIT) cache.clear();
   cache.set(tempC, props);
+  lastTempC = tempC;
+  lastProps = props;
   return props;
 }

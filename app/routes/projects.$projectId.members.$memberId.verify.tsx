@@ -2,9 +2,9 @@ import { getFormProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, redirect, useNavigation } from "react-router";
 import type { Route } from "./+types/projects.$projectId.members.$memberId.verify";
-import { readVerificationForm } from "~/approvals/evidence.server";
+import { readFormWithFile, sniffDocumentOrImage } from "~/platform/small-upload.server";
 import { revokeSchema, verifySchema } from "~/approvals/schemas";
-import { registrationRecord, revokeRegistration, VerificationError, verifyRegistration } from "~/approvals/verification.server";
+import { EVIDENCE_MAX_BYTES, registrationRecord, revokeRegistration, VerificationError, verifyRegistration } from "~/approvals/verification.server";
 import { requireProjectAction } from "~/projects/projects.server";
 import { Button } from "~/ui/button";
 import { FormErrors, TextArea, TextField } from "~/ui/form";
@@ -22,7 +22,7 @@ export async function loader({ context, request, params }: Route.LoaderArgs) {
 
 export async function action({ context, request, params }: Route.ActionArgs) {
   const { user, project } = requireProjectAction(context, request, "members.manage");
-  const { fields, evidence, problem } = await readVerificationForm(request);
+  const { fields, file: evidence, problem } = await readFormWithFile(request, { maxBytes: EVIDENCE_MAX_BYTES, sniff: sniffDocumentOrImage, wrongType: "Evidence must be a PDF, PNG or JPEG file." });
   const schema = fields.intent === "revoke" ? revokeSchema : verifySchema;
   const submission = parseWithZod(new URLSearchParams(fields), { schema });
   if (submission.status !== "success") return data(submission.reply(), { status: 400 });

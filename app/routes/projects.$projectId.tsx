@@ -21,6 +21,7 @@ const TABS: { to: string; label: string; action: Action; end?: boolean }[] = [
   { to: "drawings", label: "Register", action: "drawings.view" },
   { to: "transmittals", label: "Transmittals", action: "drawings.view" },
   { to: "requests", label: "Requests", action: "requests.view" },
+  { to: "calculations", label: "Calculations", action: "calculations.run" },
   { to: "members", label: "Members", action: "members.view" },
   { to: "settings", label: "Settings", action: "project.edit" },
 ];

@@ -3,11 +3,15 @@
 import * as foundation from "./2026.12.01T00.00.00.foundation";
 import * as drawings from "./2026.12.01T01.00.00.drawings";
 import * as requests from "./2026.12.01T02.00.00.requests";
+import * as calculations from "./2026.12.01T03.00.00.calculations";
 import * as signing from "./2026.12.01T05.00.00.signing";
+import * as approvals from "./2026.12.01T06.00.00.approvals";
 
 export const MIGRATIONS = [
   { name: "2026.12.01T00.00.00.foundation", ...foundation },
   { name: "2026.12.01T01.00.00.drawings", ...drawings },
   { name: "2026.12.01T02.00.00.requests", ...requests },
+  { name: "2026.12.01T03.00.00.calculations", ...calculations },
   { name: "2026.12.01T05.00.00.signing", ...signing },
+  { name: "2026.12.01T06.00.00.approvals", ...approvals },
 ];

@@ -74,3 +74,22 @@ SigningKey.belongsTo(User, { as: "user", foreignKey: "userId" });
 RegistrationVerification.belongsTo(User, { as: "verifiedBy", foreignKey: "verifiedById" });
 
 export { RegistrationVerification, SigningKey };
+
+// Saved calculations.
+import { Calculation } from "./calculation";
+
+Calculation.belongsTo(User, { as: "creator", foreignKey: "createdBy" });
+
+export { Calculation };
+
+// Signed approvals and installation records.
+import { Approval } from "./approval";
+import { InstallationRecord } from "./installation-record";
+
+Approval.belongsTo(User, { as: "signer", foreignKey: "signerId" });
+Approval.belongsTo(DeviationRequest, { as: "request", foreignKey: "requestId" });
+Approval.hasMany(InstallationRecord, { as: "installations", foreignKey: "approvalId" });
+InstallationRecord.belongsTo(User, { as: "recordedBy", foreignKey: "recordedById" });
+
+export { Approval, InstallationRecord };
+export { APPROVAL_STATES, type ApprovalState } from "./approval";

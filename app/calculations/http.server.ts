@@ -1,0 +1,38 @@
+// How calculation failures leave a route: /api/ callers get `{ status, message, issues? }` JSON, pages get
+// `data({ message, issues }, { status })` for the error boundary or the form.
+import { data } from "react-router";
+import { isDatabaseUnavailable } from "../../db/connection";
+import { apiError } from "../platform/http.server";
+import { CalculationError } from "./calculations.server";
+
+const DB_DOWN = "Countersign cannot reach its database right now. Nothing was saved.";
+
+export async function forApi(work: () => Promise<Response>): Promise<Response> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof Response) throw error;
+    if (error instanceof CalculationError) return apiError(error.status, error.message, error.issues.length ? { issues: error.issues } : {});
+    if (isDatabaseUnavailable(error)) return apiError(503, DB_DOWN);
+    throw error;
+  }
+}
+
+export async function forPage<T>(work: () => Promise<T>): Promise<T> {
+  try {
+    return await work();
+  } catch (error) {
+    if (error instanceof CalculationError) throw data({ message: error.message }, { status: error.status });
+    if (isDatabaseUnavailable(error)) throw data({ message: DB_DOWN }, { status: 503 });
+    throw error;
+  }
+}
+
+/** Reads a JSON body; a malformed one is a 400 with a plain message. */
+export async function readJson(request: Request): Promise<unknown> {
+  try {
+    return await request.json();
+  } catch {
+    throw apiError(400, "The request body must be JSON.");
+  }
+}

@@ -1,0 +1,50 @@
+// A new calculation of one kind, started from a small worked example; engineers can save it.
+import type { Route } from "./+types/projects.$projectId.calculations.new.$kind";
+import { saveFromForm } from "~/calculations/actions.server";
+import { Calculator } from "~/calculations/calculator";
+import { isKind, KIND_DEFINITIONS } from "~/calculations/kinds";
+import { notFound } from "~/platform/http.server";
+import { can } from "~/projects/permissions";
+import { requireProjectAction } from "~/projects/projects.server";
+import { PageBack } from "~/calculations/page-back";
+
+function kindOf(value: string) {
+  if (!isKind(value)) notFound("There is no such calculator.");
+  return value;
+}
+
+export async function loader({ context, request, params }: Route.LoaderArgs) {
+  const { project, role } = requireProjectAction(context, request, "calculations.run");
+  const kind = kindOf(params.kind);
+  return { projectId: project.id, kind, canSave: can(role, "calculations.save") };
+}
+
+export async function action({ context, request, params }: Route.ActionArgs) {
+  return saveFromForm(context, request, kindOf(params.kind));
+}
+
+export default function NewCalculation({ loaderData, actionData }: Route.ComponentProps) {
+  const { kind, projectId, canSave } = loaderData;
+  const def = KIND_DEFINITIONS[kind];
+  return (
+    <div className="space-y-4">
+      <PageBack projectId={projectId} />
+      <div>
+        <h2 className="text-2xl font-bold">{def.label}</h2>
+        <p className="mt-1 text-ink-soft">{def.summary} Started from a worked example: change it to your installation.</p>
+      </div>
+      <Calculator
+        key={kind}
+        kind={kind}
+        initialInput={def.example()}
+        canSave={canSave}
+        defaultTitle=""
+        saveLabel="Save calculation"
+        lastResult={actionData?.result}
+        serverIssues={actionData?.issues}
+      />
+    </div>
+  );
+}
+
+export const meta: Route.MetaFunction = ({ data }) => [{ title: `New ${data ? KIND_DEFINITIONS[data.kind].label.toLowerCase() : "calculation"} · Countersign` }];
