@@ -1,3 +1,4 @@
+import { can } from "~/projects/permissions";
 import type { Route } from "./+types/projects.$projectId.requests.$requestId._index";
 import { ATTACHMENT_MAX_BYTES } from "~/requests/attachments.server";
 import { addComment, listComments } from "~/requests/comments.server";
@@ -22,7 +23,7 @@ export async function loader({ context, request, params }: Route.LoaderArgs) {
     const view = await getRequest(project.id, params.requestId, { id: user.id, role });
     const [comments, members] = await Promise.all([listComments(project.id, view.id), role === "manager" ? listMembers(project.id) : []]);
     const engineers = members.filter((m) => m.role === "engineer").map((m) => ({ userId: m.userId, name: m.name }));
-    return { view, comments, engineers, manager: role === "manager", maxBytes: ATTACHMENT_MAX_BYTES, sent: new URL(request.url).searchParams.has("sent") };
+    return { view, comments, engineers, manager: role === "manager", canSign: can(role, "approvals.sign"), maxBytes: ATTACHMENT_MAX_BYTES, sent: new URL(request.url).searchParams.has("sent") };
   });
 }
 
@@ -83,6 +84,8 @@ export default function RequestDetail({ loaderData, actionData }: Route.Componen
           </dl>
           <div className="mt-5"><MovePanel base={base} moves={view.moves} lockVersion={view.lockVersion} canEdit={view.canEdit} /></div>
           {view.state === "decided" ? <a href={`${base}/review`} className="mt-4 block text-sm font-semibold text-copper-deep underline underline-offset-4">See the decision</a> : null}
+          {view.state === "decided" && loaderData.canSign ? <a href={`${base}/sign`} className="mt-3 inline-block rounded-md bg-copper px-4 py-2.5 text-sm font-semibold text-white hover:bg-copper-deep">Sign approval</a> : null}
+          {view.state === "decided" || view.state === "closed" ? <a href={`/projects/${view.projectId ?? ""}/site`} className="mt-3 block text-sm font-semibold text-copper-deep underline underline-offset-4">Signed approvals on the site page</a> : null}
         </Panel>
         {manager && !["decided", "withdrawn", "superseded", "draft"].includes(view.state) ? (
           <Panel><h2 className="mb-3 text-lg font-bold">Manage</h2><ManagerPanel engineers={engineers} assigneeId={view.assignee?.id ?? null} dueOn={dateInputValue(view.dueAt)} lockVersion={view.lockVersion} /></Panel>

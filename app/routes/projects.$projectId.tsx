@@ -22,6 +22,7 @@ const TABS: { to: string; label: string; action: Action; end?: boolean }[] = [
   { to: "transmittals", label: "Transmittals", action: "drawings.view" },
   { to: "requests", label: "Requests", action: "requests.view" },
   { to: "calculations", label: "Calculations", action: "calculations.run" },
+  { to: "site", label: "Site page", action: "approvals.view" },
   { to: "members", label: "Members", action: "members.view" },
   { to: "settings", label: "Settings", action: "project.edit" },
 ];

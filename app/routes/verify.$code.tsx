@@ -60,7 +60,7 @@ export default function Verify({ loaderData, actionData }: Route.ComponentProps)
         <Form method="post" encType="multipart/form-data" className="mt-3 flex flex-wrap items-center gap-3">
           <label htmlFor="pack" className="sr-only">PDF to check</label>
           <input id="pack" name="pack" type="file" accept="application/pdf" required className="text-sm" />
-          <Button type="submit" disabled={navigation.state === "submitting"}>Check</Button>
+          <Button type="submit" disabled={navigation.state === "submitting"}>Check this file</Button>
         </Form>
         {actionData ? (
           <p role="status" data-verdict={actionData.verdict} className={`mt-4 flex gap-2 rounded-md border p-3 text-sm font-medium ${good ? "border-ok/40 bg-ok/5 text-ok" : "border-fail/40 bg-fail/5 text-fail"}`}>

@@ -15,8 +15,9 @@ import { Approval, AuditEvent, Calculation, Decision, DeviationRequest, Installa
 import { makeSheet, upload, until } from "../support/drawings";
 import { makeProjectTeam, PASSWORD } from "../support/factory";
 import { Client, pageText } from "../support/http";
+import { decidedRequest as decidedRequestFor } from "../support/approvals";
 import { waitForMail } from "../support/mail";
-import { api, CONTENT, makePhoto, principles } from "../support/requests";
+import { makePhoto } from "../support/requests";
 
 type Team = Awaited<ReturnType<typeof makeProjectTeam>>;
 const dir = mkdtempSync(path.join(tmpdir(), "approvals-"));
@@ -34,28 +35,7 @@ function pdfsig(bytes: Uint8Array) {
   }
 }
 
-async function move(who: string, id: string, action: string, extra: Record<string, unknown> = {}) {
-  const current = (await DeviationRequest.findByPk(id))!;
-  const res = await api(as[who]!, "POST", `/api/projects/${team.project.id}/requests/${id}/transitions`, { action, lockVersion: current.lockVersion, ...extra });
-  expect(res.status, JSON.stringify(res.body)).toBe(200);
-}
-
-/** A sheet in the register (real upload), and a request decided on it with conditions. */
-async function decidedRequest(title = CONTENT.title) {
-  const sheet = `AP-${Date.now().toString(36)}-${n++}`;
-  const up = await upload(as.architect!, team.project.id, await makeSheet({ tag: sheet }), { sheetNumber: sheet, title: "Roof plumbing" });
-  expect(up.status, JSON.stringify(up.body)).toBe(201);
-  const revisionId = up.body.stored[0].revisionId as string;
-  const created = await api(as.site_plumber!, "POST", `/api/projects/${team.project.id}/requests`, { ...CONTENT, title });
-  expect(created.status).toBe(201);
-  const id = created.body.request.id as string;
-  await move("site_plumber", id, "submit");
-  await move("engineer", id, "start_review");
-  const judged = principles();
-  judged[2] = { principleId: "safe_discharge", outcome: "maintained", reasoning: "28 mm from the valve outlet keeps the run within its limit." };
-  await move("engineer", id, "decide", { outcome: "approved_with_conditions", principles: judged, conditions: ["Insulate the exposed run.", "Label the termination point."], restsOn: [revisionId] });
-  return { id, revisionId, sheet };
-}
+const decidedRequest = (title?: string) => decidedRequestFor(team.project.id, as as never, title);
 
 async function signPage(requestId: string, who = "engineer") {
   const res = await as[who]!.get(`/projects/${team.project.id}/requests/${requestId}/sign`);

@@ -1,7 +1,7 @@
 import { getFormProps, useForm, type SubmissionResult } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
 import { data, Form, Link, useNavigation } from "react-router";
-import type { Route } from "./+types/projects.$projectId.members";
+import type { Route } from "./+types/projects.$projectId.members._index";
 import { inviteMember, listOpenInvitations, revokeInvitation } from "~/projects/invitations.server";
 import { MemberPicker } from "~/projects/member-picker";
 import { changeRole, listMembers, MembershipError, removeMember } from "~/projects/members.server";
