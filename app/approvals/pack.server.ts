@@ -4,6 +4,7 @@
 import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import QRCode from "qrcode";
 import { embedFonts, printable, type PdfFonts } from "../platform/pdf-fonts.server";
+import { a4Writer, COPPER, INK, SOFT, wrap } from "../platform/pdf-writer.server";
 import { markupPath, type MarkupShape } from "../review/markups";
 
 export interface PackSheet {
@@ -29,9 +30,6 @@ export interface PackInput {
   caution: string;
 }
 
-const INK = rgb(0.114, 0.102, 0.086);
-const SOFT = rgb(0.353, 0.322, 0.282);
-const COPPER = rgb(0.604, 0.29, 0.125);
 const PAPER = rgb(1, 0.992, 0.973);
 
 function hexColor(hex: string) {
@@ -61,22 +59,6 @@ function drawMarkup(page: PDFPage, m: MarkupShape, fonts: PdfFonts) {
     const [x1, y1, x2, y2] = m.points as [number, number, number, number];
     page.drawText(printable(m.text), { x: (x1 + x2) / 2 + 4, y: height - (y1 + y2) / 2 + 4, size: 9, font: fonts.semibold, color });
   }
-}
-
-function wrap(text: string, font: PDFFont, size: number, width: number): string[] {
-  const out: string[] = [];
-  for (const paragraph of text.split("\n")) {
-    let line = "";
-    for (const word of paragraph.split(/\s+/).filter(Boolean)) {
-      const next = line ? `${line} ${word}` : word;
-      if (font.widthOfTextAtSize(next, size) > width && line) {
-        out.push(line);
-        line = word;
-      } else line = next;
-    }
-    out.push(line);
-  }
-  return out;
 }
 
 async function drawQr(page: PDFPage, url: string, x: number, y: number, size: number) {
@@ -111,31 +93,7 @@ async function drawStamp(page: PDFPage, input: PackInput, sheet: PackSheet, font
 }
 
 function recordPages(doc: PDFDocument, input: PackInput, fonts: PdfFonts) {
-  const [W, H, M] = [595.28, 841.89, 48];
-  let page = doc.addPage([W, H]);
-  let y = H - M;
-  const ensure = (needed: number) => {
-    if (y - needed < M) {
-      page = doc.addPage([W, H]);
-      y = H - M;
-    }
-  };
-  const para = (s: string, size = 9.5, font = fonts.regular, color = INK, indent = 0) => {
-    for (const line of wrap(printable(s), font, size, W - 2 * M - indent)) {
-      ensure(size + 4);
-      y -= size;
-      page.drawText(line, { x: M + indent, y, size, font, color });
-      y -= 4;
-    }
-  };
-  const heading = (s: string) => {
-    y -= 10;
-    ensure(30);
-    y -= 12;
-    page.drawText(printable(s), { x: M, y, size: 12, font: fonts.bold, color: COPPER });
-    y -= 8;
-  };
-
+  const { para, heading } = a4Writer(doc, fonts);
   para("COUNTERSIGN · APPROVAL RECORD", 8, fonts.bold, COPPER);
   para(`${input.approval.reference}: ${input.request.title}`, 17, fonts.bold);
   para(`${input.approval.decision} · approval version ${input.approval.version} · signed ${input.approval.signedAt.toISOString().replace("T", " ").slice(0, 16)} UTC`, 10, fonts.semibold);

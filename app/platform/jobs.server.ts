@@ -90,4 +90,13 @@ export async function stopJobs() {
 // restart (or by another server) is picked up without waiting for a request. Scripts and tests start it lazily.
 if (typeof import.meta.env !== "undefined" && import.meta.env.PROD && !process.env.VITEST && env.JOBS_WORKER) {
   setTimeout(() => void startJobs().catch((error) => console.error("job queue did not start:", (error as Error).message)), 0);
+  // The HTTP server closes on these signals, but the queue's timers would keep the process (and its worker, with
+  // old code) alive: stop the queue and leave, so a stopped server really stops.
+  for (const signal of ["SIGTERM", "SIGINT"] as const) {
+    process.once(signal, () => {
+      const force = setTimeout(() => process.exit(0), 12_000);
+      force.unref();
+      void stopJobs().finally(() => process.exit(0));
+    });
+  }
 }

@@ -9,6 +9,8 @@ export interface Mail {
   subject: string;
   text: string;
   action?: { label: string; url: string };
+  /** Small files only (they travel through the job queue): base64 content. */
+  attachments?: { filename: string; contentType: string; contentBase64: string }[];
 }
 
 function escapeHtml(s: string) {
@@ -22,7 +24,14 @@ export async function sendMail(mail: Mail) {
 ${mail.text.split(/\n\n+/).map((p) => `<p>${escapeHtml(p).replace(/\n/g, "<br>")}</p>`).join("\n")}
 ${mail.action ? `<p><a href="${escapeHtml(mail.action.url)}" style="background:#a4542a;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${escapeHtml(mail.action.label)}</a></p><p style="font-size:12px;color:#6b6157">${escapeHtml(mail.action.url)}</p>` : ""}
 </div>`;
-  await transport.sendMail({ from: env.MAIL_FROM, to: mail.to, subject: mail.subject, text, html });
+  await transport.sendMail({
+    from: env.MAIL_FROM,
+    to: mail.to,
+    subject: mail.subject,
+    text,
+    html,
+    attachments: mail.attachments?.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, "base64") })),
+  });
 }
 
 export function appLink(path: string) {

@@ -65,6 +65,7 @@ export default function ApprovalPage({ loaderData, actionData }: Route.Component
             <h3 className="font-bold">Check a copy</h3>
             <p className="mt-1 text-sm text-ink-soft">Anyone can check a pack at <Link className="underline" to={`/verify/${approval.verifyCode}`}>its verification page</Link>.</p>
             <p className="mt-2 break-all text-xs text-ink-soft">Pack SHA-256 {packSha256}</p>
+            <a href={`/projects/${projectId}/approvals/${approval.id}/compliance-record.pdf`} className="mt-3 inline-block text-sm font-semibold text-copper-deep underline underline-offset-4">Compliance record (PDF) for the certificate</a>
           </Panel>
           <Panel>
             <h3 className="font-bold">Versions</h3>

@@ -17,7 +17,10 @@ export default function SitePage({ loaderData }: Route.ComponentProps) {
   return (
     <div className="mx-auto max-w-3xl space-y-6">
       <div className="flex flex-wrap items-center justify-between gap-3">
-        <h2 className="text-xl font-bold">Signed approvals for site</h2>
+        <div>
+          <h2 className="text-xl font-bold">Signed approvals for site</h2>
+          <Link to={`/projects/${projectId}/notices`} className="text-sm font-semibold text-copper-deep underline underline-offset-4">Non-compliance notices to owners</Link>
+        </div>
         {current.length ? (
           <a href={`/projects/${projectId}/site/packs.zip`} className="rounded-md border border-rule bg-sheet px-4 py-2.5 text-sm font-semibold hover:border-copper" download>
             Download all current packs (zip)

@@ -93,3 +93,11 @@ InstallationRecord.belongsTo(User, { as: "recordedBy", foreignKey: "recordedById
 
 export { Approval, InstallationRecord };
 export { APPROVAL_STATES, type ApprovalState } from "./approval";
+
+// Non-compliance notices to owners.
+import { NoncomplianceNotice } from "./noncompliance-notice";
+
+NoncomplianceNotice.belongsTo(User, { as: "createdBy", foreignKey: "createdById" });
+
+export { NoncomplianceNotice };
+export type { NoticeItem } from "./noncompliance-notice";

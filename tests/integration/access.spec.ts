@@ -46,7 +46,7 @@ const CASES: Case[] = [
 ];
 
 /** Route files other parts of the product own, with their own matrices in their own specs. */
-const COVERED_ELSEWHERE = /^(projects\.\$projectId\.(drawings|transmittals|requests|calculations|approvals|site)|api\.projects\.\$projectId\.(drawings|transmittals|requests|calculations|approvals)|api\.calculations|api\.requests|requests\.|verify)/;
+const COVERED_ELSEWHERE = /^(projects\.\$projectId\.(drawings|transmittals|requests|calculations|approvals|site|notices)|api\.projects\.\$projectId\.(drawings|transmittals|requests|calculations|approvals)|api\.calculations|api\.requests|requests\.|verify)/;
 
 function expected(c: Case, caller: Caller): "ok" | "sign-in" | "forbidden" {
   if (c.needs === "public") return "ok";

@@ -51,6 +51,11 @@ const CASES: Case[] = [
   { name: "signing desk", method: "GET", path: () => `/projects/${team.project.id}/requests/${ids.request}/sign`, needs: "approvals.sign" },
   { name: "sign", method: "POST", path: () => `/projects/${team.project.id}/requests/${ids.request}/sign`, needs: "approvals.sign", fields: {} },
   { name: "public verification", method: "GET", path: () => `/verify/${ids.code}`, needs: "public" },
+  { name: "compliance record", method: "GET", path: () => `/projects/${team.project.id}/approvals/${ids.approval}/compliance-record.pdf`, needs: "approvals.view" },
+  { name: "notices", method: "GET", path: () => `/projects/${team.project.id}/notices`, needs: "approvals.view" },
+  { name: "send notice", method: "POST", path: () => `/projects/${team.project.id}/notices`, needs: "installations.record", fields: {} },
+  { name: "API: approvals", method: "GET", path: () => `/api/projects/${team.project.id}/approvals`, needs: "approvals.view" },
+  { name: "API: one approval", method: "GET", path: () => `/api/projects/${team.project.id}/approvals/${ids.approval}`, needs: "approvals.view" },
 ];
 
 function expected(c: Case, caller: Caller) {
@@ -62,6 +67,7 @@ function expected(c: Case, caller: Caller) {
 
 function outcome(res: Response) {
   if (res.status === 403) return "forbidden";
+  if (res.status === 401) return "sign-in";
   if (res.status === 302 && res.headers.get("location")?.startsWith("/sign-in")) return "sign-in";
   // Allowed: the page, a redirect to storage, or the route's own answer to this test's thin data.
   if ([200, 302, 400, 404, 409, 422].includes(res.status)) return "ok";

@@ -212,6 +212,12 @@ describe("versions, supersession, the site and public verification", () => {
     expect(bytes.includes(Buffer.from(`${approval.reference}-approval-v1.pdf`))).toBe(true);
     const site = await pageText(await as.site_plumber!.get(`/projects/${team.project.id}/site`));
     expect(site).toContain("Insulate the exposed run.");
+    const viaApi = await as.site_plumber!.json(`/api/projects/${team.project.id}/approvals/${approval.id}`);
+    expect(viaApi.status).toBe(200);
+    expect(viaApi.body.approval).toMatchObject({ reference: approval.reference, n: 1, state: "current" });
+    expect(viaApi.body.pack.url).toContain("X-Amz-Expires=300");
+    const list = await as.architect!.json(`/api/projects/${team.project.id}/approvals?state=current`);
+    expect(list.body.approvals.map((a: { id: string }) => a.id)).toContain(approval.id);
   });
 
   it("signs a new version that supersedes the first and shows what changed", async () => {
@@ -246,6 +252,40 @@ describe("versions, supersession, the site and public verification", () => {
     expect((await DeviationRequest.findByPk(first.id))!.state).toBe("closed");
     const engineerTry = await as.engineer!.request(`/projects/${team.project.id}/approvals/${approval.id}`, { method: "POST", body: new URLSearchParams({ installedOn: "2026-11-30" }) });
     expect(engineerTry.status).toBe(403);
+  });
+
+  it("gives a compliance record for the certificate, showing the installation", async () => {
+    const res = await as.site_plumber!.get(`/projects/${team.project.id}/approvals/${approval.id}/compliance-record.pdf`);
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    const file = path.join(dir, "record.pdf");
+    writeFileSync(file, Buffer.from(await res.arrayBuffer()));
+    const text = execFileSync("pdftotext", [file, "-"], { encoding: "utf8" }).replace(/\s+/g, " ");
+    expect(text).toContain("COMPLIANCE RECORD");
+    expect(text).toContain(`${approval.reference} approval v2`);
+    expect(text).toContain("Fit a tundish at the outlet.");
+    expect(text).toMatch(/Installed as approved on \d{4}-\d{2}-\d{2}/);
+  });
+
+  it("sends a non-compliance notice to the owner as a PDF, refusing incomplete ones", async () => {
+    const path_ = `/projects/${team.project.id}/notices`;
+    const base = { ownerName: "Test Owner", ownerEmail: "owner-nc@test.example", property: "Unit 2, 1 Test Street", inspectedOn: "2026-11-30" };
+    const empty = await as.site_plumber!.post(path_, base);
+    expect(empty.status).toBe(400);
+    expect(await pageText(empty)).toContain("List at least one non-compliance.");
+    const noRule = await as.site_plumber!.post(path_, { ...base, "items[0].finding": "No vacuum breaker on the cold side" });
+    expect(noRule.status).toBe(400);
+    expect(await pageText(noRule)).toContain("Say which rule it breaks.");
+    expect((await as.architect!.post(path_, { ...base, "items[0].finding": "x", "items[0].rule": "y" })).status).toBe(403);
+    const ok = await as.site_plumber!.post(path_, {
+      ...base,
+      "items[0].finding": "No vacuum breaker on the cold side", "items[0].rule": "Vacuum breakers on both hot and cold sides", "items[0].ownerDecision": "correct_now",
+      "items[1].finding": "Drain valve replaced with a plug", "items[1].rule": "Integral valves keep their type and rating", "items[1].ownerDecision": "declined",
+    });
+    expect(ok.status).toBe(200);
+    expect(await pageText(ok)).toMatch(/Notice \d+ was sent to owner-nc@test.example/);
+    const mail = await waitForMail("owner-nc@test.example", /Non-compliance notice \d+/);
+    expect((mail as unknown as { attachments: { fileName?: string; generatedFileName?: string; contentType: string }[] }).attachments?.[0]?.contentType).toBe("application/pdf");
   });
 
   it("flags an approval for re-approval when a drawing it rests on is superseded", async () => {
