@@ -70,7 +70,9 @@ export function verifyPdfSignature(pdf: Buffer): SignatureReport {
   const report: SignatureReport = { ...none, signed: true, coversWholeDocument: a === 0 && c + d === pdf.length };
   if (a !== 0 || b < 0 || c < a + b || c + d > pdf.length) return { ...report, problem: "The signature's byte range is malformed." };
   try {
-    const hex = pdf.subarray(b + 1, c - 1).toString("latin1").replace(/(00)+$/, "");
+    // The placeholder is zero-padded; the DER reader stops at the end of the first element, so the padding is
+    // left alone (stripping trailing zeros would also cut a signature that happens to end in a zero byte).
+    const hex = pdf.subarray(b + 1, c - 1).toString("latin1");
     const cms = asn1.fromDer(forge.util.hexToBytes(hex), { parseAllBytes: false, strict: false } as never);
     const signedData = ((cms.value as forge.asn1.Asn1[])[1]!.value as forge.asn1.Asn1[])[0]!;
     const parts = signedData.value as forge.asn1.Asn1[];

@@ -17,7 +17,7 @@ const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.len
 const sheets = await Promise.all(Array.from({ length: 49 }, (_, i) => sheet(i)));
 const identity = issueSigningIdentity({ name: "Bench Engineer", email: "b@bench.example", registrationNumber: "B-1" });
 const runs = { build: [] as number[], sign: [] as number[], verify: [] as number[], sha: [] as number[] };
-let bytes = Buffer.alloc(0);
+let bytes: Buffer = Buffer.alloc(0);
 for (let r = 0; r < 5; r++) {
   let t = performance.now();
   const doc = await buildApprovalPack({
