@@ -26,6 +26,7 @@ import { appLink } from "../platform/mailer.server";
 import { deleteObject, getObjectBytes, putObject, StorageUnavailableError } from "../platform/storage.server";
 import { requestCode } from "../requests/due";
 import { provisionLabel } from "../requests/provisions";
+import { markupsForPack } from "../review/markups.server";
 import { DECISION_LABELS, OUTCOME_LABELS, PRINCIPLES, type DecisionOutcome, type PrincipleOutcome } from "../review/principles";
 import { buildApprovalPack } from "./pack.server";
 import { signPdf } from "./pdf-signature.server";
@@ -65,6 +66,8 @@ async function gatherRecord(projectId: string, requestId: string, transaction?: 
     Approval.max("n", { where: { requestId }, transaction }) as Promise<number | null>,
   ]);
   if (!version) throw new SigningError("The request version of this decision is missing.", 409);
+  // The engineer's markups on the sheets the decision rests on are part of what is signed.
+  const markups = await markupsForPack(requestId, revisions.map((r) => r.id), transaction);
   const byPrinciple = new Map(assessments.map((a) => [a.principle, a]));
   const record = {
     request: {
@@ -95,6 +98,7 @@ async function gatherRecord(projectId: string, requestId: string, transaction?: 
       const d = (r as unknown as { drawing: Drawing }).drawing;
       return { revisionId: r.id, sheetNumber: d.sheetNumber, title: d.title, revisionLabel: r.label, status: r.status, sha256: r.sha256 };
     }),
+    markups: markups.map((m) => ({ id: m.id, revisionId: m.revisionId, page: m.page, kind: m.kind, version: m.version, shape: m.shape })),
     nextVersion: (previous ?? 0) + 1,
   };
   return { request, decision, record, revisions };
@@ -167,7 +171,7 @@ export async function signApproval(actor: { id: string }, projectId: string, req
           const bytes = await getObjectBytes(r.objectKey);
           if (!bytes) throw new SigningError(`The drawing file of ${record.drawings.find((d) => d.revisionId === r.id)?.sheetNumber ?? "a sheet"} is missing from storage.`, 503);
           const d = record.drawings.find((x) => x.revisionId === r.id)!;
-          return { sheetNumber: d.sheetNumber, title: d.title, revisionLabel: d.revisionLabel, sha256: d.sha256, pdf: bytes, markups: [] };
+          return { sheetNumber: d.sheetNumber, title: d.title, revisionLabel: d.revisionLabel, sha256: d.sha256, pdf: bytes, markups: record.markups.filter((m) => m.revisionId === r.id).map((m) => ({ ...m.shape, page: m.page })) };
         }),
       );
       const doc = await buildApprovalPack({

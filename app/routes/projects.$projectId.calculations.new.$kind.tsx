@@ -16,7 +16,9 @@ function kindOf(value: string) {
 export async function loader({ context, request, params }: Route.LoaderArgs) {
   const { project, role } = requireProjectAction(context, request, "calculations.run");
   const kind = kindOf(params.kind);
-  return { projectId: project.id, kind, canSave: can(role, "calculations.save") };
+  // A length measured on a sheet arrives as ?lengthM= (the segment calculator's run length).
+  const lengthM = Number(new URL(request.url).searchParams.get("lengthM"));
+  return { projectId: project.id, kind, canSave: can(role, "calculations.save"), lengthM: kind === "segment" && lengthM > 0 && lengthM < 10_000 ? lengthM : null };
 }
 
 export async function action({ context, request, params }: Route.ActionArgs) {
@@ -24,7 +26,7 @@ export async function action({ context, request, params }: Route.ActionArgs) {
 }
 
 export default function NewCalculation({ loaderData, actionData }: Route.ComponentProps) {
-  const { kind, projectId, canSave } = loaderData;
+  const { kind, projectId, canSave, lengthM } = loaderData;
   const def = KIND_DEFINITIONS[kind];
   return (
     <div className="space-y-4">
@@ -36,7 +38,7 @@ export default function NewCalculation({ loaderData, actionData }: Route.Compone
       <Calculator
         key={kind}
         kind={kind}
-        initialInput={def.example()}
+        initialInput={lengthM !== null ? { ...(def.example() as object), lengthM } : def.example()}
         canSave={canSave}
         defaultTitle=""
         saveLabel="Save calculation"

@@ -23,7 +23,7 @@ export async function loader({ context, request, params }: Route.LoaderArgs) {
     const view = await getRequest(project.id, params.requestId, { id: user.id, role });
     const [comments, members] = await Promise.all([listComments(project.id, view.id), role === "manager" ? listMembers(project.id) : []]);
     const engineers = members.filter((m) => m.role === "engineer").map((m) => ({ userId: m.userId, name: m.name }));
-    return { view, comments, engineers, manager: role === "manager", canSign: can(role, "approvals.sign"), maxBytes: ATTACHMENT_MAX_BYTES, sent: new URL(request.url).searchParams.has("sent") };
+    return { view, comments, engineers, manager: role === "manager", canSign: can(role, "approvals.sign"), canReview: can(role, "requests.review"), maxBytes: ATTACHMENT_MAX_BYTES, sent: new URL(request.url).searchParams.has("sent") };
   });
 }
 
@@ -82,6 +82,7 @@ export default function RequestDetail({ loaderData, actionData }: Route.Componen
             <dt className="text-ink-soft">In this state</dt><dd>for {view.waiting}</dd>
             <dt className="text-ink-soft">Versions</dt><dd>{view.versions.length}</dd>
           </dl>
+          <a href={`${base}/sheet`} className="mt-4 block text-sm font-semibold text-copper-deep underline underline-offset-4">{loaderData.canReview ? "Mark up the sheet" : "See the sheet and its markups"}</a>
           <div className="mt-5"><MovePanel base={base} moves={view.moves} lockVersion={view.lockVersion} canEdit={view.canEdit} /></div>
           {view.state === "decided" ? <a href={`${base}/review`} className="mt-4 block text-sm font-semibold text-copper-deep underline underline-offset-4">See the decision</a> : null}
           {view.state === "decided" && loaderData.canSign ? <a href={`${base}/sign`} className="mt-3 inline-block rounded-md bg-copper px-4 py-2.5 text-sm font-semibold text-white hover:bg-copper-deep">Sign approval</a> : null}

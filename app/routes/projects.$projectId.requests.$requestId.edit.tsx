@@ -48,6 +48,7 @@ export default function EditRequest({ loaderData, actionData }: Route.ComponentP
       <div className="flex flex-wrap items-center gap-3">
         <h2 className="text-xl font-bold">{view.code}</h2>
         <StateBadge state={view.state} />
+        <a href={`/projects/${view.projectId}/requests/${view.id}/sheet`} className="text-sm font-semibold text-copper-deep underline underline-offset-4">Place pins on the sheet</a>
       </div>
       {view.state === "info_requested" ? <p className="text-sm text-ink-soft">The engineer asked for more information (see the conversation on the request). Change what is needed and resubmit; the version they saw stays on the record.</p> : null}
       <Panel>

@@ -38,6 +38,7 @@ export default function ReviewDesk({ loaderData, actionData }: Route.ComponentPr
         <h2 className="text-xl font-bold">Review desk · {r.code}</h2>
         <StateBadge state={r.state} />
         <Link to={`/projects/${r.projectId}/requests/${r.id}`} className="text-sm font-semibold text-copper-deep underline underline-offset-4">Back to the request and its conversation</Link>
+        <Link to={`/projects/${r.projectId}/requests/${r.id}/sheet`} className="text-sm font-semibold text-copper-deep underline underline-offset-4">Mark up the sheet</Link>
       </div>
       <p className="flex items-start gap-2 rounded-md border border-rule bg-paper px-4 py-3 text-sm" role="note">
         <AlertIcon className="mt-0.5 shrink-0 text-copper" />

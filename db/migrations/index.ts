@@ -7,6 +7,7 @@ import * as calculations from "./2026.12.01T03.00.00.calculations";
 import * as signing from "./2026.12.01T05.00.00.signing";
 import * as approvals from "./2026.12.01T06.00.00.approvals";
 import * as notices from "./2026.12.01T08.00.00.notices";
+import * as markups from "./2026.12.01T07.00.00.markups";
 
 export const MIGRATIONS = [
   { name: "2026.12.01T00.00.00.foundation", ...foundation },
@@ -15,5 +16,6 @@ export const MIGRATIONS = [
   { name: "2026.12.01T03.00.00.calculations", ...calculations },
   { name: "2026.12.01T05.00.00.signing", ...signing },
   { name: "2026.12.01T06.00.00.approvals", ...approvals },
+  { name: "2026.12.01T07.00.00.markups", ...markups },
   { name: "2026.12.01T08.00.00.notices", ...notices },
 ];

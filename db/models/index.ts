@@ -94,6 +94,13 @@ InstallationRecord.belongsTo(User, { as: "recordedBy", foreignKey: "recordedById
 export { Approval, InstallationRecord };
 export { APPROVAL_STATES, type ApprovalState } from "./approval";
 
+// The engineer's markups on sheets.
+import { Markup } from "./markup";
+
+Markup.belongsTo(User, { as: "author", foreignKey: "authorId" });
+
+export { Markup };
+
 // Non-compliance notices to owners.
 import { NoncomplianceNotice } from "./noncompliance-notice";
 
