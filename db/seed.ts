@@ -1,7 +1,11 @@
 // Loads the demo scenario once (skips when the demo manager already exists). `tsx db/seed.ts`
 import { hashPassword } from "../app/accounts/password.server";
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT, DEMO_REQUESTS } from "./demo";
-import { DeviationRequest, Project, ProjectMember, RequestVersion, sequelize, User } from "./models";
+import { createHash } from "node:crypto";
+import { processRevision } from "../app/drawings/processing.server";
+import { putObject } from "../app/platform/storage.server";
+import { drawDemoSheet, DEMO_SHEETS } from "./demo-sheets";
+import { DeviationRequest, Drawing, DrawingRevision, Project, ProjectMember, RequestVersion, sequelize, User } from "./models";
 
 try {
   const manager = DEMO_PEOPLE.find((p) => p.role === "manager")!;
@@ -39,6 +43,7 @@ try {
     console.log("demo data: loaded");
   }
   await seedRequests();
+  await seedSheets();
 } finally {
   await sequelize.close();
 }
@@ -68,4 +73,25 @@ async function seedRequests() {
     }
   });
   console.log("demo data: requests loaded");
+}
+
+/** Two invented sheets in the register, stored in the object store and processed (pages, text, thumbnails). */
+async function seedSheets() {
+  const project = await Project.findOne({ where: { name: DEMO_PROJECT.name } });
+  if (!project || (await Drawing.count({ where: { projectId: project.id } }))) return;
+  const architect = (await User.findOne({ where: { email: DEMO_PEOPLE.find((p) => p.role === "architect")!.email } }))!;
+  for (const sheet of DEMO_SHEETS) {
+    const bytes = await drawDemoSheet(sheet);
+    const sha256 = createHash("sha256").update(bytes).digest("hex");
+    const objectKey = `projects/${project.id}/revisions/${sha256}.pdf`;
+    await putObject(objectKey, bytes, { contentType: "application/pdf", contentLength: bytes.length });
+    const drawing = await Drawing.create({ projectId: project.id, sheetNumber: sheet.sheetNumber, title: sheet.title, discipline: "Plumbing", scaleText: "1:50", createdById: architect.id });
+    const revision = await DrawingRevision.create({
+      projectId: project.id, drawingId: drawing.id, label: sheet.label, status: "accepted", description: sheet.description, objectKey, sha256,
+      byteSize: bytes.length, originalFilename: `${sheet.sheetNumber}.pdf`, sourcePage: null, pageCount: 1, pages: [], uploadedById: architect.id,
+      issuedById: architect.id, issuedAt: new Date(),
+    });
+    await processRevision(revision.id);
+  }
+  console.log("demo data: sheets loaded");
 }
