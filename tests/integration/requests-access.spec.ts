@@ -43,6 +43,10 @@ const CASES: Case[] = [
   { file: "api.projects.$projectId.requests.$requestId.comments.ts", path: (i) => `${A(i)}/comments`, method: "GET", needs: "requests.view", api: true },
   { file: "api.projects.$projectId.requests.$requestId.comments.ts", path: (i) => `${A(i)}/comments`, method: "POST", needs: "requests.view", api: true, json: {} },
   { file: "requests._index.tsx", path: () => "/requests", method: "GET", needs: "project.view" },
+  { file: "projects.$projectId.requests.$requestId.sheet.tsx", path: (i) => `${R(i)}/sheet`, method: "GET", needs: "requests.view" },
+  { file: "api.projects.$projectId.requests.$requestId.markups.ts", path: (i) => `${A(i)}/markups`, method: "GET", needs: "requests.view", api: true },
+  { file: "api.projects.$projectId.requests.$requestId.markups.ts", path: (i) => `${A(i)}/markups`, method: "POST", needs: "requests.review", api: true, json: {} },
+  { file: "api.projects.$projectId.requests.$requestId.pins.ts", path: (i) => `${A(i)}/pins`, method: "GET", needs: "requests.view", api: true },
 ];
 
 function expected(c: Case, caller: Caller): "ok" | "sign-in" | "forbidden" {
@@ -88,7 +92,9 @@ describe("every requests route file is in this matrix", () => {
     // Signing a decision belongs to approvals, whose own spec holds its matrix.
     const files = readdirSync(new URL("../../app/routes", import.meta.url))
       .filter((f) => /^(projects\.\$projectId\.requests|api\.projects\.\$projectId\.requests|requests\.)/.test(f))
-      .filter((f) => !/\.(sign|approvals?)\b/.test(f));
+      .filter((f) => !/\.(sign|approvals?)\b/.test(f))
+      // Changing or removing one markup or pin is write-only; markups.spec.ts holds who may do it.
+      .filter((f) => !/\.(markups\.\$markupId|pins\.\$pinId)\.ts$/.test(f));
     const listed = new Set(CASES.map((c) => c.file));
     expect(files.filter((f) => !listed.has(f))).toEqual([]);
   });
