@@ -300,3 +300,13 @@ export async function listVersions(projectId: string, requestId: string) {
   const versions = (await RequestVersion.findAll({ where: { requestId }, order: [["n", "ASC"]] })).map(toVersionView);
   return versions.map((v, i) => ({ ...v, changes: i > 0 ? diffVersions(versions[i - 1]!, v) : null }));
 }
+
+/** The measurements of a request's latest version, for starting a calculator from them (null if none). */
+export async function requestMeasurements(projectId: string, requestId: string | null) {
+  if (!requestId || !/^[0-9a-f-]{36}$/i.test(requestId)) return null;
+  const request = await DeviationRequest.findOne({ where: { id: requestId, projectId }, attributes: ["id", "number", "state"] });
+  // A draft is its author's alone until submitted.
+  if (!request || request.state === "draft") return null;
+  const version = await latestVersion(request.id);
+  return { code: requestCode(request.number), measurements: (version?.measurements ?? []).map((m) => ({ kind: m.kind, value: Number(m.value) })) };
+}

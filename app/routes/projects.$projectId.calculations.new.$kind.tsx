@@ -1,4 +1,6 @@
 // A new calculation of one kind, started from a small worked example; engineers can save it.
+import { prefillFromMeasurements } from "~/calculations/prefill";
+import { requestMeasurements } from "~/requests/requests.server";
 import type { Route } from "./+types/projects.$projectId.calculations.new.$kind";
 import { saveFromForm } from "~/calculations/actions.server";
 import { Calculator } from "~/calculations/calculator";
@@ -16,9 +18,12 @@ function kindOf(value: string) {
 export async function loader({ context, request, params }: Route.LoaderArgs) {
   const { project, role } = requireProjectAction(context, request, "calculations.run");
   const kind = kindOf(params.kind);
+  const url = new URL(request.url);
   // A length measured on a sheet arrives as ?lengthM= (the segment calculator's run length).
-  const lengthM = Number(new URL(request.url).searchParams.get("lengthM"));
-  return { projectId: project.id, kind, canSave: can(role, "calculations.save"), lengthM: kind === "segment" && lengthM > 0 && lengthM < 10_000 ? lengthM : null };
+  const lengthM = Number(url.searchParams.get("lengthM"));
+  // ?from=<request> starts from the measurements the plumber recorded on that request.
+  const measured = await requestMeasurements(project.id, url.searchParams.get("from"));
+  return { projectId: project.id, kind, canSave: can(role, "calculations.save"), lengthM: kind === "segment" && lengthM > 0 && lengthM < 10_000 ? lengthM : null, measured };
 }
 
 export async function action({ context, request, params }: Route.ActionArgs) {
@@ -26,19 +31,19 @@ export async function action({ context, request, params }: Route.ActionArgs) {
 }
 
 export default function NewCalculation({ loaderData, actionData }: Route.ComponentProps) {
-  const { kind, projectId, canSave, lengthM } = loaderData;
+  const { kind, projectId, canSave, lengthM, measured } = loaderData;
   const def = KIND_DEFINITIONS[kind];
   return (
     <div className="space-y-4">
       <PageBack projectId={projectId} />
       <div>
         <h2 className="text-2xl font-bold">{def.label}</h2>
-        <p className="mt-1 text-ink-soft">{def.summary} Started from a worked example: change it to your installation.</p>
+        <p className="mt-1 text-ink-soft">{def.summary} {measured ? `Started from the measurements on ${measured.code}; check every input against the site.` : "Started from a worked example: change it to your installation."}</p>
       </div>
       <Calculator
         key={kind}
         kind={kind}
-        initialInput={lengthM !== null ? { ...(def.example() as object), lengthM } : def.example()}
+        initialInput={measured ? prefillFromMeasurements(kind, def.example(), measured.measurements) : lengthM !== null ? { ...(def.example() as object), lengthM } : def.example()}
         canSave={canSave}
         defaultTitle=""
         saveLabel="Save calculation"

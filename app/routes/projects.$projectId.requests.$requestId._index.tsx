@@ -1,4 +1,7 @@
 import { can } from "~/projects/permissions";
+import { PROVISIONS } from "~/requests/provisions";
+
+const calculatorFor = (provision: string) => PROVISIONS.find((p) => p.id === provision)?.calculator ?? null;
 import type { Route } from "./+types/projects.$projectId.requests.$requestId._index";
 import { ATTACHMENT_MAX_BYTES } from "~/requests/attachments.server";
 import { addComment, listComments } from "~/requests/comments.server";
@@ -85,6 +88,9 @@ export default function RequestDetail({ loaderData, actionData }: Route.Componen
           <a href={`${base}/sheet`} className="mt-4 block text-sm font-semibold text-copper-deep underline underline-offset-4">{loaderData.canReview ? "Mark up the sheet" : "See the sheet and its markups"}</a>
           <div className="mt-5"><MovePanel base={base} moves={view.moves} lockVersion={view.lockVersion} canEdit={view.canEdit} /></div>
           {view.state === "decided" ? <a href={`${base}/review`} className="mt-4 block text-sm font-semibold text-copper-deep underline underline-offset-4">See the decision</a> : null}
+          {calculatorFor(view.provision) && view.state !== "draft" ? (
+            <a href={`/projects/${view.projectId ?? ""}/calculations/new/${calculatorFor(view.provision)}?from=${view.id}`} className="mt-3 block text-sm font-semibold text-copper-deep underline underline-offset-4">Check it in the calculator, from these measurements</a>
+          ) : null}
           {view.state === "decided" && loaderData.canSign ? <a href={`${base}/sign`} className="mt-3 inline-block rounded-md bg-copper px-4 py-2.5 text-sm font-semibold text-white hover:bg-copper-deep">Sign approval</a> : null}
           {view.state === "decided" || view.state === "closed" ? <a href={`/projects/${view.projectId ?? ""}/site`} className="mt-3 block text-sm font-semibold text-copper-deep underline underline-offset-4">Signed approvals on the site page</a> : null}
         </Panel>

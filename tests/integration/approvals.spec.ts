@@ -104,6 +104,14 @@ describe("signing", () => {
     await expect(sequelize.query(`DELETE FROM approvals WHERE id = :id`, { replacements: { id: approval.id } })).rejects.toThrow(/never deleted/);
   });
 
+  it("starts the provision's calculator from the request's measurements", async () => {
+    const r = await decidedRequest();
+    const html = await pageText(await as.engineer!.get(`/projects/${team.project.id}/requests/${r.id}`));
+    expect(html).toContain(`/calculations/new/discharge?from=${r.id}`);
+    const calc = await pageText(await as.engineer!.get(`/projects/${team.project.id}/calculations/new/discharge?from=${r.id}`));
+    expect(calc).toMatch(/Started from the measurements on DR-\d+/);
+  });
+
   it("refuses a wrong password, a stale record, and signing the same decision twice", async () => {
     const r = await decidedRequest();
     const { digest } = await signPage(r.id);
