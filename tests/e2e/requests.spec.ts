@@ -2,13 +2,22 @@
 // the engineer asks for more information, the plumber answers and resubmits, and the engineer records the
 // principles and an approval with conditions. Every step's e-mail is read back from the mail fake.
 import sharp from "sharp";
+import { DrawingRevision } from "../../db/models";
+import { makeSheet, until, upload } from "../support/drawings";
 import { makeProjectTeam, PASSWORD } from "../support/factory";
+import { Client } from "../support/http";
 import { linkIn, waitForMail } from "../support/mail";
 import { PRINCIPLES } from "../../app/review/principles";
 import { expect, signIn, test } from "./fixtures";
 
 test("a plumber files a request from a phone and the engineer approves it with conditions", async ({ page, browser }) => {
   const team = await makeProjectTeam();
+  // A processed sheet in the register to pin the request to.
+  const architect = new Client();
+  await architect.signIn(team.users.architect.email, PASSWORD);
+  const sheet = await upload(architect, team.project.id, await makeSheet({ tag: "pin-sheet" }), { sheetNumber: "P-PIN", title: "Roof plumbing" });
+  const revisionId = sheet.body.stored[0].revisionId as string;
+  await until(async () => (await DrawingRevision.findByPk(revisionId))?.processing === "done", 30_000, "the sheet to be processed");
   const photo = await sharp({ create: { width: 800, height: 600, channels: 3, background: "#8a6a4a" } }).jpeg().toBuffer();
 
   // The plumber, on a phone.
@@ -36,6 +45,14 @@ test("a plumber files a request from a phone and the engineer approves it with c
   await expect(plumber.getByRole("img", { name: "roof.jpg" })).toBeVisible();
   await plumber.getByTestId("file-input").setInputFiles({ name: "notes.txt", mimeType: "text/plain", buffer: Buffer.from("not a photo") });
   await expect(plumber.getByText("is not a photo or a PDF")).toBeVisible();
+  // A pin on the sheet where the discharge run is.
+  const editUrl = plumber.url();
+  await plumber.getByRole("link", { name: "Place pins on the sheet" }).click();
+  await expect(plumber.getByText("Click the sheet to place a numbered pin.")).toBeVisible();
+  await plumber.locator(".konvajs-content").first().click({ position: { x: 120, y: 90 } });
+  await expect(plumber.getByText("Pin 1 placed.")).toBeVisible();
+  await expect(plumber.getByTestId("pin-list")).toContainText("1");
+  await plumber.goto(editUrl);
   await plumber.getByRole("button", { name: "Submit to the engineer" }).click();
   await expect(plumber.getByText("Sent to the engineer.")).toBeVisible();
   await expect(plumber.getByText("Submitted", { exact: true })).toBeVisible();
