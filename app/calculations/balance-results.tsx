@@ -2,7 +2,7 @@
 // plot of both profiles, the suggestions with a button to apply each, and the segment-by-segment losses.
 import { lazy, Suspense } from "react";
 import type { BalanceResult, BalanceSuggestion } from "~/engineering";
-import { ClientOnly } from "~/drawings/client-only";
+import { ClientOnly } from "~/ui/client-only";
 import { Button } from "~/ui/button";
 import { formatNumber } from "./format";
 import type { NetworkAction } from "./network-state";

@@ -1,15 +1,9 @@
 // The one error type of the drawing register: a message for people and the HTTP status that goes with it.
-export class DrawingError extends Error {
-  constructor(
-    message: string,
-    readonly status: number,
-    readonly code?: string,
-  ) {
-    super(message);
-  }
-}
+import { DomainError } from "../platform/failures.server";
 
-export const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+export class DrawingError extends DomainError {}
+
+export { UUID } from "../platform/failures.server";
 
 export function keys(projectId: string) {
   return {

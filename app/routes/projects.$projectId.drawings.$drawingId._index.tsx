@@ -1,7 +1,7 @@
 import { lazy, Suspense, useCallback } from "react";
 import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/projects.$projectId.drawings.$drawingId._index";
-import { ClientOnly } from "~/drawings/client-only";
+import { ClientOnly } from "~/ui/client-only";
 import { formatBytes, formatDate, paperSize } from "~/drawings/format";
 import { describeFailure, forPage } from "~/drawings/http.server";
 import { retryProcessing } from "~/drawings/processing.server";

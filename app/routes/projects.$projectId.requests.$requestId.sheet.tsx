@@ -3,7 +3,7 @@
 import { lazy, Suspense } from "react";
 import { Form, Link } from "react-router";
 import type { Route } from "./+types/projects.$projectId.requests.$requestId.sheet";
-import { ClientOnly } from "~/drawings/client-only";
+import { ClientOnly } from "~/ui/client-only";
 import { forPage } from "~/requests/http.server";
 import { StateBadge } from "~/requests/state-badge";
 import { getReviewSheet } from "~/review/sheet.server";
