@@ -1,8 +1,9 @@
 // The printable calculation sheet: one A4 page in our own plain layout — what was calculated, for which
 // project, by whom, with which engine; the inputs, method, sources, results and findings; and the caution.
-// Helvetica (a PDF standard font) stands in for Inter Tight: pdf-lib embeds only TTF/OTF through fontkit and
-// the app ships the face as WOFF/WOFF2 only. Long inputs are cut to fit the page; the saved record has them all.
-import { PDFDocument, rgb, StandardFonts, type PDFFont, type PDFPage } from "pdf-lib";
+// Set in Inter Tight, embedded like every Countersign PDF. Long inputs are cut to fit the page; the saved record
+// has them all.
+import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import { embedFonts } from "~/platform/pdf-fonts.server";
 import type { BalanceInput, Figure } from "./kinds";
 import { flatten } from "./compare";
 import { formatDateTime, formatFigure, formatNumber } from "./format";
@@ -16,7 +17,7 @@ const SOFT = rgb(0.35, 0.32, 0.28);
 const COPPER = rgb(0.6, 0.29, 0.13);
 const RULE = rgb(0.85, 0.8, 0.72);
 
-// Characters outside the standard fonts' WinAnsi set, spelt so a reader (and pdftotext) still gets them.
+// Characters outside the embedded face's latin subset, spelt so a reader (and pdftotext) still gets them.
 const SPELL: Record<string, string> = { "−": "-", "≤": "<=", "≥": ">=", "ρ": "rho", "Δ": "delta ", "→": "->", "Σ": "sum ", "π": "pi", "∫": "integral ", "√": "sqrt", "⚠": "!", "≈": "~", "✓": "ok", " ": " " };
 
 class Writer {
@@ -195,8 +196,7 @@ export async function calculationSheet(calc: CalculationView, ctx: SheetContext)
   pdf.setCreator("Countersign");
   pdf.setProducer("Countersign");
   const page = pdf.addPage([A4.w, A4.h]);
-  const regular = await pdf.embedFont(StandardFonts.Helvetica);
-  const bold = await pdf.embedFont(StandardFonts.HelveticaBold);
+  const { regular, bold } = await embedFonts(pdf);
 
   // The caution and footer are laid out first, from the bottom, so the body can never push them off the page.
   const probe = new Writer(page, regular, bold, 0);

@@ -224,6 +224,8 @@ describe("calculation sheet (PDF)", () => {
     writeFileSync(join(dir, "s.pdf"), bytes);
     const info = execFileSync("pdfinfo", [join(dir, "s.pdf")]).toString();
     expect(info).toMatch(/Pages:\s+1\b/);
+    // Set in the product's own face, embedded, like every Countersign PDF.
+    expect(execFileSync("pdffonts", [join(dir, "s.pdf")]).toString()).toMatch(/InterTight.*\byes\b/i);
     const text = execFileSync("pdftotext", ["-layout", join(dir, "s.pdf"), "-"]).toString().replace(/\s+/g, " ");
     expect(text).toContain("Sheet check");
     expect(text).toContain("Pressure balance");
