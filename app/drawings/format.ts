@@ -4,9 +4,12 @@ export function formatBytes(n: number) {
   return `${Math.max(1, Math.round(n / 1024))} KB`;
 }
 
+// Made once: building a formatter per call (as toLocaleString with options does) dominated long registers.
+const DATE_TIME = new Intl.DateTimeFormat("en-ZA", { dateStyle: "medium", timeStyle: "short", timeZone: "Africa/Johannesburg" });
+
 export function formatDate(iso: string | null | undefined) {
   if (!iso) return "—";
-  return new Date(iso).toLocaleString("en-ZA", { dateStyle: "medium", timeStyle: "short", timeZone: "Africa/Johannesburg" });
+  return DATE_TIME.format(new Date(iso));
 }
 
 /** Paper size name for a page in points (ISO A series, either orientation), else its size in mm. */

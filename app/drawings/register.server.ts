@@ -1,6 +1,6 @@
 // Reading the register: a project's sheets with their revisions and current revision, one sheet, one revision.
 // Every query is scoped by project, so an id from another project is simply not found.
-import { Op } from "sequelize";
+import { Op, type WhereOptions } from "sequelize";
 import { Drawing, DrawingRevision, User, type RevisionStatus } from "../../db/models";
 import { compareLabels } from "./labels";
 import { DrawingError, UUID } from "./errors";
@@ -44,8 +44,10 @@ export interface DrawingView {
   revisions: RevisionView[];
 }
 
-function toRevisionView(r: DrawingRevision): RevisionView {
-  const withUsers = r as DrawingRevision & { uploadedBy?: User | null; issuedBy?: User | null };
+/** A revision's fields, with the names of who uploaded and issued it when they were read. */
+type RevisionSource = Pick<DrawingRevision, (typeof REVISION_FIELDS)[number]> & { uploadedBy?: { name: string } | null; issuedBy?: { name: string } | null };
+
+function toRevisionView(r: RevisionSource): RevisionView {
   return {
     id: r.id,
     drawingId: r.drawingId,
@@ -53,7 +55,8 @@ function toRevisionView(r: DrawingRevision): RevisionView {
     status: r.status,
     description: r.description,
     sha256: r.sha256,
-    byteSize: r.byteSize,
+    // Plain rows carry BIGINT as text; model instances already give a number.
+    byteSize: Number(r.byteSize),
     originalFilename: r.originalFilename,
     sourcePage: r.sourcePage,
     pageCount: r.pageCount,
@@ -61,9 +64,9 @@ function toRevisionView(r: DrawingRevision): RevisionView {
     processing: r.processing,
     processingError: r.processingError ?? null,
     processedPages: r.processedPages,
-    uploadedBy: withUsers.uploadedBy?.name ?? "—",
+    uploadedBy: r.uploadedBy?.name ?? "—",
     uploadedAt: r.createdAt.toISOString(),
-    issuedBy: withUsers.issuedBy?.name ?? null,
+    issuedBy: r.issuedBy?.name ?? null,
     issuedAt: r.issuedAt ? r.issuedAt.toISOString() : null,
     supersedesId: r.supersedesId ?? null,
     supersededById: r.supersededById ?? null,
@@ -86,21 +89,45 @@ const includeUsers = [
   { model: User, as: "issuedBy", attributes: ["name"] },
 ];
 
-export async function listRegister(projectId: string): Promise<DrawingView[]> {
-  const [drawings, revisions] = await Promise.all([
-    Drawing.findAll({ where: { projectId }, order: [["sheetNumber", "ASC"]] }),
-    DrawingRevision.findAll({ where: { projectId }, attributes: [...REVISION_FIELDS], include: includeUsers }),
-  ]);
+/**
+ * The register in sheet-number order. With `limit`, one page of sheets after the `after` sheet number (a cursor:
+ * pass the last sheet number of a page to get the next one); without it, every sheet.
+ */
+export async function listRegister(projectId: string, page: { limit?: number; after?: string | null } = {}): Promise<DrawingView[]> {
+  const drawings = (await Drawing.findAll({
+    where: page.after ? { projectId, sheetNumber: { [Op.gt]: page.after } } : { projectId },
+    order: [["sheetNumber", "ASC"]],
+    limit: page.limit,
+    raw: true,
+  })) as unknown as Drawing[];
+  // A page reads only its sheets' revisions; the whole register reads the project's.
+  const revisions = await revisionViews(page.limit ? { projectId, drawingId: { [Op.in]: drawings.map((d) => d.id) } } : { projectId });
   const byDrawing = new Map<string, RevisionView[]>();
   for (const r of revisions) {
     const list = byDrawing.get(r.drawingId) ?? [];
-    list.push(toRevisionView(r));
+    list.push(r);
     byDrawing.set(r.drawingId, list);
   }
   return drawings.map((d) => {
     const revs = (byDrawing.get(d.id) ?? []).sort((a, b) => compareLabels(b.label, a.label));
     return { ...drawingFields(d), current: currentRevision(revs), revisions: revs };
   });
+}
+
+/**
+ * Revision views from plain rows, people's names read once for all of them: a register of a thousand revisions
+ * is far cheaper this way than as model instances with two joined users each.
+ */
+async function revisionViews(where: WhereOptions<DrawingRevision>): Promise<RevisionView[]> {
+  const rows = (await DrawingRevision.findAll({ where, attributes: [...REVISION_FIELDS, "uploadedById", "issuedById"], raw: true })) as unknown as (RevisionSource & {
+    uploadedById: string;
+    issuedById: string | null;
+  })[];
+  const ids = [...new Set(rows.flatMap((r) => (r.issuedById ? [r.uploadedById, r.issuedById] : [r.uploadedById])))];
+  const people = ids.length ? ((await User.findAll({ where: { id: { [Op.in]: ids } }, attributes: ["id", "name"], raw: true })) as unknown as { id: string; name: string }[]) : [];
+  const names = new Map(people.map((u) => [u.id, u.name]));
+  const person = (id: string | null) => (id && names.has(id) ? { name: names.get(id)! } : null);
+  return rows.map((r) => toRevisionView({ ...r, uploadedBy: person(r.uploadedById), issuedBy: person(r.issuedById) }));
 }
 
 function drawingFields(d: Drawing) {
@@ -111,8 +138,7 @@ export async function getDrawing(projectId: string, drawingId: string): Promise<
   if (!UUID.test(drawingId)) throw new DrawingError("No such sheet in this project.", 404);
   const d = await Drawing.findOne({ where: { id: drawingId, projectId } });
   if (!d) throw new DrawingError("No such sheet in this project.", 404);
-  const revisions = await DrawingRevision.findAll({ where: { drawingId, projectId }, attributes: [...REVISION_FIELDS], include: includeUsers });
-  const revs = revisions.map(toRevisionView).sort((a, b) => compareLabels(b.label, a.label));
+  const revs = (await revisionViews({ drawingId, projectId })).sort((a, b) => compareLabels(b.label, a.label));
   return { ...drawingFields(d), current: currentRevision(revs), revisions: revs };
 }
 
@@ -131,6 +157,38 @@ export async function findRevision(projectId: string, drawingId: string | null, 
 
 export async function getRevision(projectId: string, drawingId: string, revisionId: string): Promise<RevisionView> {
   return toRevisionView(await findRevision(projectId, drawingId, revisionId));
+}
+
+export interface RevisionBrief {
+  id: string;
+  drawingId: string;
+  label: string;
+  status: RevisionStatus;
+  pages: { widthPt: number; heightPt: number }[];
+  uploadedAt: string;
+  sheetNumber: string;
+  title: string;
+  scaleText: string | null;
+}
+
+/**
+ * Every revision of the project in brief (no people, no history fields), in register order: sheet number, then
+ * newest label first. For pickers that offer them all; far lighter than the register itself.
+ */
+export async function listRevisionBriefs(projectId: string): Promise<RevisionBrief[]> {
+  const [revisions, drawings] = await Promise.all([
+    DrawingRevision.findAll({ where: { projectId }, attributes: ["id", "drawingId", "label", "status", "pages", "createdAt"], raw: true }) as unknown as Promise<
+      Pick<DrawingRevision, "id" | "drawingId" | "label" | "status" | "pages" | "createdAt">[]
+    >,
+    Drawing.findAll({ where: { projectId }, attributes: ["id", "sheetNumber", "title", "scaleText"], raw: true }) as unknown as Promise<Pick<Drawing, "id" | "sheetNumber" | "title" | "scaleText">[]>,
+  ]);
+  const sheets = new Map(drawings.map((d) => [d.id, d]));
+  return revisions
+    .map((r) => {
+      const d = sheets.get(r.drawingId)!;
+      return { id: r.id, drawingId: r.drawingId, label: r.label, status: r.status, pages: r.pages, uploadedAt: r.createdAt.toISOString(), sheetNumber: d.sheetNumber, title: d.title, scaleText: d.scaleText };
+    })
+    .sort((a, b) => a.sheetNumber.localeCompare(b.sheetNumber) || compareLabels(b.label, a.label));
 }
 
 /** Revisions that may be issued (draft, for review, accepted), for the transmittal form. */

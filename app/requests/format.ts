@@ -5,9 +5,15 @@ export function formatBytes(n: number) {
 }
 
 /** "12 Mar 2026, 14:05" in South African time, identical on server and browser. */
+// Made once each: a formatter per call dominated rendering long lists.
+const WHEN = {
+  date: new Intl.DateTimeFormat("en-ZA", { day: "numeric", month: "short", year: "numeric", timeZone: "Africa/Johannesburg" }),
+  time: new Intl.DateTimeFormat("en-ZA", { day: "numeric", month: "short", year: "numeric", hour: "2-digit", minute: "2-digit", hour12: false, timeZone: "Africa/Johannesburg" }),
+};
+
 export function formatWhen(iso: string | null, withTime = true) {
   if (!iso) return "—";
-  return new Intl.DateTimeFormat("en-ZA", { day: "numeric", month: "short", year: "numeric", ...(withTime ? { hour: "2-digit", minute: "2-digit", hour12: false } : {}), timeZone: "Africa/Johannesburg" }).format(new Date(iso));
+  return WHEN[withTime ? "time" : "date"].format(new Date(iso));
 }
 
 /** YYYY-MM-DD of a moment in South African time (for date inputs). */

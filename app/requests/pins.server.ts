@@ -28,6 +28,11 @@ const toView = (p: RequestPin): PinView => ({ id: p.id, n: p.n, revisionId: p.re
 
 export async function listPins(projectId: string, requestId: string, viewer: { id: string; role: Actor["role"] }) {
   await getRequest(projectId, requestId, viewer);
+  return pinsOf(requestId);
+}
+
+/** The request's pins, for a caller that has already checked the viewer may see the request. */
+export async function pinsOf(requestId: string) {
   return (await RequestPin.findAll({ where: { requestId }, order: [["n", "ASC"]] })).map(toView);
 }
 

@@ -1,7 +1,7 @@
 // A list of requests: counts per state, filters (a plain GET form, so the URL is shareable), and the table
 // itself (stacked rows on a phone). What needs the viewer's action comes first, marked in words.
 import { createColumnHelper, flexRender, getCoreRowModel, useReactTable } from "@tanstack/react-table";
-import { Form, Link, useSubmit } from "react-router";
+import { Form, Link, useSearchParams, useSubmit } from "react-router";
 import { AlertIcon } from "~/ui/icons";
 import { formatWhen } from "./format";
 import type { ListFilter, RequestList, RequestRow } from "./lists.server";
@@ -99,6 +99,30 @@ export function RequestTable({ list, filter, showProject = false, me }: { list: 
         </tbody>
       </table>
       {list.total > 0 && list.rows.length === 0 ? <p className="text-sm text-ink-soft">No request matches these filters.</p> : null}
+      <Pager list={list} />
     </div>
+  );
+}
+
+/** Previous / next page links that keep the filters; the list comes a page at a time. */
+function Pager({ list }: { list: RequestList }) {
+  const [params] = useSearchParams();
+  if (list.matching <= list.pageSize && list.page === 1) return null;
+  const last = Math.max(1, Math.ceil(list.matching / list.pageSize));
+  const to = (page: number) => {
+    const next = new URLSearchParams(params);
+    next.set("page", String(page));
+    return `?${next}`;
+  };
+  const first = list.matching ? (list.page - 1) * list.pageSize + 1 : 0;
+  const link = "rounded-md border border-rule bg-sheet px-3 py-1.5 font-semibold text-copper-deep";
+  return (
+    <nav aria-label="Pages of requests" className="flex flex-wrap items-center gap-3 text-sm">
+      <span className="text-ink-soft">
+        Showing {first}–{Math.min(list.matching, first + list.rows.length - 1)} of {list.matching} · page {list.page} of {last}
+      </span>
+      {list.page > 1 ? <Link to={to(list.page - 1)} className={link} rel="prev">Previous page</Link> : null}
+      {list.page < last ? <Link to={to(list.page + 1)} className={link} rel="next">Next page</Link> : null}
+    </nav>
   );
 }

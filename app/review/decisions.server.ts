@@ -3,7 +3,7 @@
 // the request's "decide" move, so the rules, the lock check, the audit event and the e-mail share one transaction.
 import { Op, type Transaction } from "sequelize";
 import { AssessmentRow, Attachment, Decision, DeviationRequest, DrawingRevision, RequestVersion, sequelize, User, type EvidenceLink } from "../../db/models";
-import { listRegister } from "../drawings/register.server";
+import { currentRevision, listRevisionBriefs, type RevisionBrief } from "../drawings/register.server";
 import { RequestError, UUID } from "../requests/errors";
 import { checkLock, getRequest, lockRequest, zodIssues, type Actor, type RequestView } from "../requests/requests.server";
 import { moveRequest } from "../requests/transitions.server";
@@ -54,10 +54,12 @@ export interface RevisionChoice {
 
 /** Drawing revisions a decision may rest on: each sheet's current revision, unless withdrawn or superseded. */
 export async function currentRevisions(projectId: string): Promise<RevisionChoice[]> {
-  const register = await listRegister(projectId);
-  return register
-    .filter((d) => d.current && d.current.status !== "withdrawn" && d.current.status !== "superseded")
-    .map((d) => ({ id: d.current!.id, label: `${d.sheetNumber} revision ${d.current!.label} — ${d.title}` }));
+  const bySheet = new Map<string, RevisionBrief[]>();
+  for (const r of await listRevisionBriefs(projectId)) bySheet.set(r.drawingId, [...(bySheet.get(r.drawingId) ?? []), r]);
+  return [...bySheet.values()]
+    .map((revisions) => currentRevision(revisions)!)
+    .filter((c) => c.status !== "withdrawn" && c.status !== "superseded")
+    .map((c) => ({ id: c.id, label: `${c.sheetNumber} revision ${c.label} — ${c.title}` }));
 }
 
 /** Every decision on the request: the recorded ones, and the draft on the version under review. */

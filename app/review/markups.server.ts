@@ -75,8 +75,15 @@ async function checkOnPage(projectId: string, revisionId: string, page: number, 
   if (off) throw new RequestError(`The markup does not fit on the page. ${off}`, 422, "invalid", [{ path: "shape.points", message: off }]);
 }
 
-export async function listMarkups(projectId: string, requestId: string, viewer: Viewer, filter: { revisionId?: string | null; page?: number | null } = {}) {
+export async function listMarkups(projectId: string, requestId: string, viewer: Viewer, filter: MarkupFilter = {}) {
   await visibleRequest(projectId, requestId, viewer);
+  return markupsOf(projectId, requestId, filter);
+}
+
+type MarkupFilter = { revisionId?: string | null; page?: number | null };
+
+/** The request's live markups, for a caller that has already checked the viewer may see the request. */
+export async function markupsOf(projectId: string, requestId: string, filter: MarkupFilter = {}) {
   const where: Record<string, unknown> = { projectId, requestId, deletedAt: null };
   if (filter.revisionId) {
     if (!UUID.test(filter.revisionId)) throw new RequestError("That drawing revision is not on this project.", 404);

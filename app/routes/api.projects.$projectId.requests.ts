@@ -1,5 +1,6 @@
-// GET /api/projects/:projectId/requests?state=&provision=&assignee=&overdue=1 — the project's requests, counts
-// per state, what needs my action first. POST (JSON: title, provision, clauseRef, …) — a site plumber starts one.
+// GET /api/projects/:projectId/requests?state=&provision=&assignee=&overdue=1&page=&limit= — the project's requests,
+// counts per state, what needs my action first; a page at a time (limit 1–200, default 50; `matching` says how many).
+// POST (JSON: title, provision, clauseRef, …) — a site plumber starts one.
 import type { Route } from "./+types/api.projects.$projectId.requests";
 import { forApi, readBody } from "~/requests/http.server";
 import { listRequests, readFilter } from "~/requests/lists.server";

@@ -8,6 +8,7 @@ import * as signing from "./2026.12.01T05.00.00.signing";
 import * as approvals from "./2026.12.01T06.00.00.approvals";
 import * as notices from "./2026.12.01T08.00.00.notices";
 import * as markups from "./2026.12.01T07.00.00.markups";
+import * as indexes from "./2026.12.02T00.00.00.indexes";
 
 export const MIGRATIONS = [
   { name: "2026.12.01T00.00.00.foundation", ...foundation },
@@ -18,4 +19,5 @@ export const MIGRATIONS = [
   { name: "2026.12.01T06.00.00.approvals", ...approvals },
   { name: "2026.12.01T07.00.00.markups", ...markups },
   { name: "2026.12.01T08.00.00.notices", ...notices },
+  { name: "2026.12.02T00.00.00.indexes", ...indexes },
 ];
