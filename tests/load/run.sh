@@ -12,16 +12,6 @@ export TEST_SLOT=${TEST_SLOT:-5}
 # shellcheck source=storage/profile.sh
 source storage/profile.sh test
 export LOAD_CONNECTIONS=${LOAD_CONNECTIONS:-50} LOAD_DURATION=${LOAD_DURATION:-60}
-bash db/postgres.sh up
-bash db/postgres.sh recreatedb "$COUNTERSIGN_DB"
-bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null || true
-rm -rf "storage/.data/$COUNTERSIGN_RUN"
-bash storage/fakes.sh up "$COUNTERSIGN_RUN"
-tsx db/migrate.ts up
-mkdir -p ".run/$COUNTERSIGN_RUN"
-react-router build >".run/build-$COUNTERSIGN_RUN.log" 2>&1 || { cat ".run/build-$COUNTERSIGN_RUN.log"; exit 1; }
-HOST=127.0.0.1 PORT=$APP_PORT node node_modules/@react-router/serve/bin.js "$COUNTERSIGN_BUILD_DIR/server/index.js" >".run/$COUNTERSIGN_RUN/app.log" 2>&1 &
-APP_PID=$!
-trap 'kill $APP_PID 2>/dev/null || true; bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null || true' EXIT
-for _ in $(seq 1 150); do (exec 3<>"/dev/tcp/127.0.0.1/$APP_PORT") 2>/dev/null && break; sleep 0.1; done
+# shellcheck source=tests/perf/slot-stack.sh
+source tests/perf/slot-stack.sh
 tsx tests/load/load.ts "${LOAD_SIZE:-full}" --write

@@ -11,16 +11,6 @@ export TEST_SLOT=${TEST_SLOT:-7}
 source storage/profile.sh test
 export BENCH_UPLOAD_MB=${BENCH_UPLOAD_MB:-500}
 export UPLOAD_MAX_BYTES=$(( (BENCH_UPLOAD_MB + 50) * 1024 * 1024 ))
-bash db/postgres.sh up
-bash db/postgres.sh recreatedb "$COUNTERSIGN_DB"
-bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null || true
-rm -rf "storage/.data/$COUNTERSIGN_RUN"
-bash storage/fakes.sh up "$COUNTERSIGN_RUN"
-tsx db/migrate.ts up
-mkdir -p ".run/$COUNTERSIGN_RUN"
-react-router build >".run/build-$COUNTERSIGN_RUN.log" 2>&1 || { cat ".run/build-$COUNTERSIGN_RUN.log"; exit 1; }
-HOST=127.0.0.1 PORT=$APP_PORT node node_modules/@react-router/serve/bin.js "$COUNTERSIGN_BUILD_DIR/server/index.js" >".run/$COUNTERSIGN_RUN/app.log" 2>&1 &
-APP_PID=$!
-trap 'kill $APP_PID 2>/dev/null || true; bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null || true' EXIT
-for _ in $(seq 1 150); do (exec 3<>"/dev/tcp/127.0.0.1/$APP_PORT") 2>/dev/null && break; sleep 0.1; done
+# shellcheck source=tests/perf/slot-stack.sh
+source tests/perf/slot-stack.sh
 APP_PID=$APP_PID tsx tests/perf/drawings.perf.ts
