@@ -55,7 +55,10 @@ export interface RevisionChoice {
 /** Drawing revisions a decision may rest on: each sheet's current revision, unless withdrawn or superseded. */
 export async function currentRevisions(projectId: string): Promise<RevisionChoice[]> {
   const bySheet = new Map<string, RevisionBrief[]>();
-  for (const r of await listRevisionBriefs(projectId)) bySheet.set(r.drawingId, [...(bySheet.get(r.drawingId) ?? []), r]);
+  for (const r of await listRevisionBriefs(projectId)) {
+    if (!bySheet.has(r.drawingId)) bySheet.set(r.drawingId, []);
+    bySheet.get(r.drawingId)!.push(r);
+  }
   return [...bySheet.values()]
     .map((revisions) => currentRevision(revisions)!)
     .filter((c) => c.status !== "withdrawn" && c.status !== "superseded")
