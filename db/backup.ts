@@ -11,10 +11,10 @@ import path from "node:path";
 import { Readable, Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { fileURLToPath } from "node:url";
-import { GetObjectCommand, HeadBucketCommand, ListObjectsV2Command, PutObjectCommand } from "@aws-sdk/client-s3";
+import { GetObjectCommand, HeadBucketCommand, PutObjectCommand } from "@aws-sdk/client-s3";
 import pg from "pg";
 import { env } from "../app/platform/env.server";
-import { s3 } from "../app/platform/storage.server";
+import { listKeys, s3 } from "../app/platform/storage.server";
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const DUMP = "database.dump";
@@ -67,28 +67,23 @@ export async function backup(folder: string): Promise<Manifest> {
   const dump = await sha256File(path.join(folder, DUMP));
 
   const objects: Manifest["objects"] = [];
-  let token: string | undefined;
-  do {
-    const page = await s3.send(new ListObjectsV2Command({ Bucket: env.S3_BUCKET, ContinuationToken: token }));
-    for (const { Key } of page.Contents ?? []) {
-      const out = await s3.send(new GetObjectCommand({ Bucket: env.S3_BUCKET, Key }));
-      const hash = createHash("sha256");
-      let bytes = 0;
-      const partial = path.join(folder, "objects", ".partial");
-      const count = new Transform({
-        transform(chunk: Buffer, _enc, done) {
-          hash.update(chunk);
-          bytes += chunk.length;
-          done(null, chunk);
-        },
-      });
-      await pipeline(out.Body as Readable, count, createWriteStream(partial));
-      const sha256 = hash.digest("hex");
-      renameSync(partial, objectFile(folder, sha256));
-      objects.push({ key: Key!, sha256, bytes, contentType: out.ContentType });
-    }
-    token = page.IsTruncated ? page.NextContinuationToken : undefined;
-  } while (token);
+  for await (const Key of listKeys("", env.S3_BUCKET)) {
+    const out = await s3.send(new GetObjectCommand({ Bucket: env.S3_BUCKET, Key }));
+    const hash = createHash("sha256");
+    let bytes = 0;
+    const partial = path.join(folder, "objects", ".partial");
+    const count = new Transform({
+      transform(chunk: Buffer, _enc, done) {
+        hash.update(chunk);
+        bytes += chunk.length;
+        done(null, chunk);
+      },
+    });
+    await pipeline(out.Body as Readable, count, createWriteStream(partial));
+    const sha256 = hash.digest("hex");
+    renameSync(partial, objectFile(folder, sha256));
+    objects.push({ key: Key!, sha256, bytes, contentType: out.ContentType });
+  }
 
   const manifest: Manifest = { createdAt: new Date().toISOString(), database: { file: DUMP, sha256: dump.sha256, bytes: dump.bytes }, bucket: env.S3_BUCKET, objects };
   // Written last: a folder with a manifest is a complete backup.

@@ -5,6 +5,7 @@ import { createHash } from "node:crypto";
 import { Op } from "sequelize";
 import { ProjectMember, RegistrationVerification, sequelize, SigningKey, User } from "../../db/models";
 import { audit } from "../platform/audit.server";
+import { UUID } from "../platform/failures.server";
 import { env } from "../platform/env.server";
 import type { SmallFile } from "../platform/small-upload.server";
 import { deleteObject, putObject } from "../platform/storage.server";
@@ -23,7 +24,7 @@ export type Evidence = SmallFile;
 export const EVIDENCE_MAX_BYTES = 10 * 1024 * 1024;
 
 async function engineerMember(projectId: string, memberId: string) {
-  const member = await ProjectMember.findOne({ where: { id: memberId, projectId }, include: [{ model: User, as: "user" }] });
+  const member = UUID.test(memberId) ? await ProjectMember.findOne({ where: { id: memberId, projectId }, include: [{ model: User, as: "user" }] }) : null;
   if (!member) throw new VerificationError("That person is not a member of this project.", 404);
   if (member.role !== "engineer") throw new VerificationError("Only members with the engineer role have a registration to verify.", 422);
   return { member, user: (member as unknown as { user: User }).user };

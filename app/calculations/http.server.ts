@@ -2,7 +2,7 @@
 // `data({ message, issues }, { status })` for the error boundary or the form.
 import { data } from "react-router";
 import { isDatabaseUnavailable } from "../../db/connection";
-import { apiError } from "../platform/http.server";
+import { apiError, BodyError, readJsonBody } from "../platform/http.server";
 import { CalculationError } from "./calculations.server";
 
 const DB_DOWN = "Countersign cannot reach its database right now. Nothing was saved.";
@@ -28,11 +28,12 @@ export async function forPage<T>(work: () => Promise<T>): Promise<T> {
   }
 }
 
-/** Reads a JSON body; a malformed one is a 400 with a plain message. */
+/** Reads a JSON body; one that is not JSON, or holds text that cannot be stored, is refused with a plain message. */
 export async function readJson(request: Request): Promise<unknown> {
   try {
-    return await request.json();
-  } catch {
-    throw apiError(400, "The request body must be JSON.");
+    return await readJsonBody(request);
+  } catch (error) {
+    if (error instanceof BodyError) throw apiError(error.status, error.message, error.issues.length ? { issues: error.issues } : {});
+    throw error;
   }
 }

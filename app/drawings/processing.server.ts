@@ -4,7 +4,7 @@
 import { Op } from "sequelize";
 import { DrawingRevision, isDatabaseUnavailable, type PageSize, type TextRun } from "../../db/models";
 import { audit } from "../platform/audit.server";
-import { defineJob, whenJobsStart } from "../platform/jobs.server";
+import { activeJobs, defineJob, failJob, whenJobsStart } from "../platform/jobs.server";
 import { putObject, StorageUnavailableError } from "../platform/storage.server";
 import { DrawingError, keys } from "./errors";
 import { objectSource, openPdf, pageSize, pageText, renderPage } from "./pdf.server";
@@ -32,6 +32,30 @@ whenJobsStart(async () => {
     limit: 500,
   });
   for (const r of stale) await queueProcessing(r.id);
+});
+
+// A revision being processed records each page as it goes. One that has shown no progress for this long was left
+// by a process that stopped (killed, crashed, redeployed): its job goes back to the queue for a live worker.
+// If the process was merely slow, the page is processed twice, which is harmless: every write is by key.
+export const STALL_SECONDS = 30;
+const STALL_CHECK_EVERY_MS = 10_000;
+
+export async function requeueStalledProcessing(now = Date.now()) {
+  const active = await activeJobs<{ revisionId: string }>(job.name);
+  if (!active.length) return 0;
+  const stalled = await DrawingRevision.findAll({
+    where: { id: active.map((j) => j.data.revisionId), processing: ["running", "queued"], updatedAt: { [Op.lt]: new Date(now - STALL_SECONDS * 1000) } },
+    attributes: ["id"],
+  });
+  const ids = new Set(stalled.map((r) => r.id));
+  const jobs = active.filter((j) => ids.has(j.data.revisionId) && j.startedOn.getTime() < now - STALL_SECONDS * 1000);
+  for (const j of jobs) await failJob(job.name, j.id, `no progress for ${STALL_SECONDS} s: the process running it stopped`);
+  return jobs.length;
+}
+
+whenJobsStart(async () => {
+  const timer = setInterval(() => void requeueStalledProcessing().catch((e) => console.error("stalled processing check:", (e as Error).message)), STALL_CHECK_EVERY_MS);
+  timer.unref();
 });
 
 function explain(error: unknown): string {

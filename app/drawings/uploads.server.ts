@@ -14,7 +14,7 @@ import { Drawing, DrawingRevision, sequelize, type PageSize, type RevisionStatus
 import { audit } from "../platform/audit.server";
 import { env } from "../platform/env.server";
 import { boundaryOf, drainBody, MultipartError, readMultipart } from "../platform/multipart.server";
-import { deleteObject, objectExists, putObject } from "../platform/storage.server";
+import { discardObjects, objectExists, putObject } from "../platform/storage.server";
 import type { Role } from "../projects/permissions";
 import { DrawingError, keys } from "./errors";
 import { nextLabel } from "./labels";
@@ -256,7 +256,7 @@ export async function receiveUpload(request: Request, actor: { id: string }, pro
       duplicates,
     };
   } finally {
-    for (const key of putKeys) await deleteObject(key).catch(() => {});
+    await discardObjects(putKeys, async (objectKey) => (await DrawingRevision.count({ where: { objectKey } })) > 0);
     await rm(dir, { recursive: true, force: true });
   }
 }

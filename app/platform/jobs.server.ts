@@ -1,4 +1,4 @@
-// The background job queue: one pg-boss instance per app process, on the app's own database (schema "pgboss"),
+// The background job queue: one pg-boss instance per app process, on the app's own database (schema JOBS_SCHEMA, "pgboss"),
 // started lazily. Domains declare their jobs with `defineJob`; the worker runs inside the app process, and since
 // pg-boss hands each job to one worker (SKIP LOCKED), any number of app servers can share the queue.
 import PgBoss from "pg-boss";
@@ -34,7 +34,7 @@ export function whenJobsStart(task: () => Promise<void>) {
 }
 
 async function boot(): Promise<PgBoss> {
-  const boss = new PgBoss({ connectionString: env.DATABASE_URL, schema: "pgboss", max: 4 });
+  const boss = new PgBoss({ connectionString: env.DATABASE_URL, schema: env.JOBS_SCHEMA, max: 4 });
   boss.on("error", (error) => console.error("job queue:", error.message));
   await boss.start();
   for (const d of definitions.values()) await register(boss, d);
@@ -76,6 +76,22 @@ export async function enqueue(name: string, data: object, options: PgBoss.SendOp
   if (!definitions.has(name)) throw new Error(`no job named ${name}`);
   const boss = await startJobs();
   return boss.send(name, data, options);
+}
+
+/** The jobs of `name` that a worker has taken and not finished (their id, data and start), from the queue's table. */
+export async function activeJobs<T extends object>(name: string): Promise<{ id: string; data: T; startedOn: Date }[]> {
+  const boss = await startJobs();
+  const { rows } = await boss.getDb().executeSql(`SELECT id, data, started_on FROM ${env.JOBS_SCHEMA}.job WHERE name = $1 AND state = 'active'`, [name]);
+  return (rows as { id: string; data: T; started_on: Date }[]).map((r) => ({ id: r.id, data: r.data, startedOn: r.started_on }));
+}
+
+/**
+ * Hands a job back to the queue as failed, so it is retried (within its retry limit) by any live worker. For work
+ * whose process died: pg-boss itself would only notice when the job expires.
+ */
+export async function failJob(name: string, id: string, reason: string) {
+  const boss = await startJobs();
+  await boss.fail(name, id, { message: reason });
 }
 
 export async function stopJobs() {

@@ -5,16 +5,23 @@ import { isDatabaseUnavailable } from "../../db/connection";
 import { userContext } from "../accounts/context";
 import { loadCurrentUser } from "../accounts/auth.server";
 import { env } from "./env.server";
+import { drainBody } from "./multipart.server";
 import { applySecurityHeaders } from "./security.server";
 
 const SAFE_METHODS = new Set(["GET", "HEAD", "OPTIONS"]);
 const appOrigin = new URL(env.APP_URL).origin;
 
-function refuse(request: Request, status: number, message: string): never {
+function refuse(request: Request, status: number, message: string, headers: HeadersInit = {}): never {
   const isApi = new URL(request.url).pathname.startsWith("/api/");
-  if (isApi) throw Response.json({ status, message }, { status });
-  throw data({ message }, { status });
+  if (isApi) throw Response.json({ status, message }, { status, headers });
+  throw data({ message }, { status, headers });
 }
+
+/** How much of a refused body is read and dropped before answering. */
+const DRAIN_LIMIT_BYTES = 16 * 1024 * 1024;
+
+/** Bodies a page action can read; anything else would fail inside `request.formData()`. */
+const FORM_TYPES = /^(application\/x-www-form-urlencoded|multipart\/form-data)\b/i;
 
 export const requestGuard: MiddlewareFunction<Response> = async ({ request }, next) => {
   if (!SAFE_METHODS.has(request.method)) {
@@ -27,7 +34,15 @@ export const requestGuard: MiddlewareFunction<Response> = async ({ request }, ne
     const type = request.headers.get("content-type") ?? "";
     // Uploads stream straight to object storage and carry their own limits; everything else is small.
     if (!type.startsWith("multipart/form-data") && length > env.MAX_FORM_BYTES) {
-      refuse(request, 413, `That submission is too large (over ${Math.round(env.MAX_FORM_BYTES / 1024)} KB).`);
+      // Read and drop a moderately large body first, so the client gets this answer rather than a reset
+      // connection; beyond that the connection is simply closed.
+      await drainBody(request.body, DRAIN_LIMIT_BYTES);
+      refuse(request, 413, `That submission is too large (over ${Math.round(env.MAX_FORM_BYTES / 1024)} KB).`, { connection: "close" });
+    }
+    const { pathname } = new URL(request.url);
+    const hasBody = length > 0 || request.headers.has("transfer-encoding");
+    if (!pathname.startsWith("/api/") && hasBody && !FORM_TYPES.test(type)) {
+      refuse(request, 415, "Send this form as a web form (application/x-www-form-urlencoded or multipart/form-data).");
     }
   }
   const response = await next();

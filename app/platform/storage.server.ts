@@ -5,6 +5,7 @@ import {
   DeleteObjectCommand,
   GetObjectCommand,
   HeadObjectCommand,
+  ListObjectsCommand,
   PutObjectCommand,
   S3Client,
   S3ServiceException,
@@ -64,6 +65,18 @@ export async function deleteObject(key: string) {
     await s3.send(new DeleteObjectCommand({ Bucket, Key: key }));
   } catch (error) {
     if (!isNotFound(error)) unavailable(error);
+  }
+}
+
+/**
+ * Cleans up after a write that failed: removes the objects it put, except those a row refers to by now. Keys are
+ * named by content, so a concurrent write of the same bytes may have recorded the very object this one put.
+ * When in doubt (the check itself fails) the object stays: an orphan is harmless, a missing object is not.
+ */
+export async function discardObjects(keys: string[], stillReferenced: (key: string) => Promise<boolean>) {
+  for (const key of keys) {
+    if (await stillReferenced(key).catch(() => true)) continue;
+    await deleteObject(key).catch(() => {});
   }
 }
 
@@ -127,4 +140,19 @@ export async function presignDownload(key: string, filename: string, expiresInSe
     { expiresIn: expiresInSeconds },
   );
   return { url, expiresAt: new Date(Date.now() + expiresInSeconds * 1000).toISOString() };
+}
+
+/**
+ * Every key under `prefix` in `bucket`, a page at a time. Uses the original listing call with a marker: the local
+ * S3 fake answers 500 to the newer call's continuation pages, and every S3-compatible store supports this one.
+ */
+export async function* listKeys(prefix = "", bucket = Bucket): AsyncGenerator<string> {
+  let marker: string | undefined;
+  for (;;) {
+    const page = await s3.send(new ListObjectsCommand({ Bucket: bucket, Prefix: prefix || undefined, Marker: marker }));
+    const keys = (page.Contents ?? []).map((o) => o.Key!).filter(Boolean);
+    yield* keys;
+    if (!page.IsTruncated || !keys.length) return;
+    marker = page.NextMarker ?? keys.at(-1);
+  }
 }

@@ -9,10 +9,11 @@ import path from "node:path";
 import { Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import sharp from "sharp";
+import { Op } from "sequelize";
 import { Attachment, DeviationRequest, sequelize, User } from "../../db/models";
 import { env } from "../platform/env.server";
 import { boundaryOf, drainBody, MultipartError, readMultipart } from "../platform/multipart.server";
-import { deleteObject, getObjectStream, objectExists, putObject } from "../platform/storage.server";
+import { deleteObject, discardObjects, getObjectStream, objectExists, putObject } from "../platform/storage.server";
 import { attachmentKeys, RequestError, UUID } from "./errors";
 import { EDITABLE_STATES, latestVersion, lockRequest, openVersion, toAttachmentView, type Actor, type AttachmentView } from "./requests.server";
 
@@ -165,7 +166,7 @@ export async function receiveAttachment(request: Request, actor: Actor, projectI
     putKeys.length = 0; // recorded: the objects now belong to a row
     return toAttachmentView(projectId, Object.assign(row, { uploadedBy: { name: actor.name } as User }));
   } finally {
-    for (const key of putKeys) await deleteObject(key).catch(() => {});
+    await discardObjects(putKeys, async (key) => (await Attachment.count({ where: { [Op.or]: [{ objectKey: key }, { thumbKey: key }] } })) > 0);
     await rm(dir, { recursive: true, force: true });
   }
 }

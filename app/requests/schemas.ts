@@ -27,9 +27,15 @@ export const readySchema = contentSchema.extend({
   proposal: z.string().trim().min(10, "Describe the proposed alternative (at least 10 characters)."),
 });
 
+/** The version a form or API call was based on: a whole number; missing, null or blank is refused, not read as 0. */
+const lockVersion = z.preprocess(
+  (v) => (v === null || (typeof v === "string" && !v.trim()) ? undefined : v),
+  z.coerce.number({ error: "The form is missing its version; reload the page." }).int().min(0),
+);
+
 export const moveSchema = z.object({
   action: z.enum(REQUEST_ACTIONS, { error: "Unknown move." }),
-  lockVersion: z.coerce.number({ error: "The form is missing its version; reload the page." }).int().min(0),
+  lockVersion,
   note: z.string().trim().max(4000).default(""),
 });
 
@@ -40,10 +46,10 @@ export const commentSchema = z.object({
 
 export const assignSchema = z.object({
   assigneeId: z.uuid({ error: "Choose an engineer." }),
-  lockVersion: z.coerce.number().int().min(0),
+  lockVersion,
 });
 
 export const dueSchema = z.object({
   dueOn: z.iso.date({ error: "Enter a date." }),
-  lockVersion: z.coerce.number().int().min(0),
+  lockVersion,
 });

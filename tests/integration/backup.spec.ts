@@ -12,7 +12,7 @@ import { CreateBucketCommand, DeleteBucketCommand, DeleteObjectCommand, GetObjec
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { verifyRegistration } from "../../app/approvals/verification.server";
-import { s3 } from "../../app/platform/storage.server";
+import { listKeys, s3 } from "../../app/platform/storage.server";
 import { Approval, DrawingRevision, ProjectMember } from "../../db/models";
 import { decidedRequest } from "../support/approvals";
 import { until } from "../support/drawings";
@@ -65,15 +65,10 @@ function tables(url: string) {
 /** Every object of a bucket with the SHA-256 of its bytes as read back from the store. */
 async function objects(bucket: string) {
   const out: Record<string, string> = {};
-  let token: string | undefined;
-  do {
-    const page = await s3.send(new ListObjectsV2Command({ Bucket: bucket, ContinuationToken: token }));
-    for (const { Key } of page.Contents ?? []) {
-      const body = (await s3.send(new GetObjectCommand({ Bucket: bucket, Key }))).Body!;
-      out[Key!] = createHash("sha256").update(await body.transformToByteArray()).digest("hex");
-    }
-    token = page.IsTruncated ? page.NextContinuationToken : undefined;
-  } while (token);
+  for await (const Key of listKeys("", bucket)) {
+    const body = (await s3.send(new GetObjectCommand({ Bucket: bucket, Key }))).Body!;
+    out[Key] = createHash("sha256").update(await body.transformToByteArray()).digest("hex");
+  }
   return out;
 }
 

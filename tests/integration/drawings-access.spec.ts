@@ -3,6 +3,8 @@
 import { readdirSync } from "node:fs";
 import { beforeAll, describe, expect, it } from "vitest";
 import { can, ROLES, type Action, type Role } from "../../app/projects/permissions";
+import { presignDownload } from "../../app/platform/storage.server";
+import { DrawingRevision, ProjectMember } from "../../db/models";
 import { makeSheet, upload } from "../support/drawings";
 import { makeProjectTeam, PASSWORD } from "../support/factory";
 import { Client } from "../support/http";
@@ -49,10 +51,11 @@ function outcome(c: Case, res: Response) {
 }
 
 let ids: Ids;
+let team: Awaited<ReturnType<typeof makeProjectTeam>>;
 const clients = new Map<Caller, Client>();
 
 beforeAll(async () => {
-  const team = await makeProjectTeam();
+  team = await makeProjectTeam();
   for (const role of ROLES) {
     const c = new Client();
     await c.signIn(team.users[role].email, PASSWORD);
@@ -82,5 +85,36 @@ describe.each(CASES.map((c) => [`${c.method} ${c.file}${c.fields?.intent ? ` (${
     const client = clients.get(caller)!;
     const res = c.method === "GET" ? await client.get(c.path(ids)) : await client.post(c.path(ids), c.fields ?? {});
     expect(outcome(c, res)).toBe(expected(c, caller));
+  });
+});
+
+describe("presigned download links", () => {
+  const download = (i: Ids) => `/api/projects/${i.p}/drawings/${i.d}/revisions/${i.r}/download`;
+
+  // The store checks the signature itself (a changed key or lifetime no longer matches it). The local fake does
+  // not verify version-4 signatures, so that part belongs to the real store; what the app controls is tested here:
+  // links expire, are short-lived, and are not issued once membership ends.
+  it("are refused by the store once expired", async () => {
+    const rev = (await DrawingRevision.findByPk(ids.r))!;
+    const url = new URL((await presignDownload(rev.objectKey, "short.pdf", 1)).url);
+    expect((await fetch(url)).status).toBe(200);
+    await new Promise((r) => setTimeout(r, 2_100));
+    expect((await fetch(url)).status).toBe(403);
+  });
+
+  it("are issued for at most the configured minutes, and never again once membership ends", async () => {
+    const plumber = clients.get("site_plumber")!;
+    const dl = await plumber.json(download(ids));
+    expect(dl.status).toBe(200);
+    const ttl = Number(new URL(dl.body.url).searchParams.get("X-Amz-Expires"));
+    expect(ttl).toBeGreaterThan(0);
+    expect(ttl).toBeLessThanOrEqual(300);
+    await ProjectMember.destroy({ where: { projectId: ids.p, userId: team.users.site_plumber.id } });
+    try {
+      expect((await plumber.json(download(ids))).status).toBe(403);
+      expect((await plumber.get(`/projects/${ids.p}/drawings/${ids.d}/revisions/${ids.r}/file`)).status).toBe(403);
+    } finally {
+      await ProjectMember.create({ projectId: ids.p, userId: team.users.site_plumber.id, role: "site_plumber" });
+    }
   });
 });

@@ -119,3 +119,40 @@ describe("database outage", () => {
     await back.cut();
   });
 });
+
+describe("secrets", () => {
+  // What must never reach a browser or a log line: the session and key-encryption secrets, the store's secret key,
+  // and a password someone typed.
+  const secrets = () => {
+    const out = [...(process.env.SESSION_SECRET ?? "test-secret-rotated").split(","), process.env.SIGNING_KEY_SECRET ?? "dev-only-signing-key-secret", PASSWORD];
+    if (process.env.S3_SECRET_ACCESS_KEY) out.push(process.env.S3_SECRET_ACCESS_KEY);
+    return out.filter((s) => s.length >= 8);
+  };
+
+  it("keeps secrets and server-only modules out of the client bundles", async () => {
+    const { readdirSync, readFileSync } = await import("node:fs");
+    const dir = `${process.env.COUNTERSIGN_BUILD_DIR ?? "build"}/client/assets`;
+    const files = readdirSync(dir).filter((f) => f.endsWith(".js"));
+    expect(files.length).toBeGreaterThan(5);
+    for (const f of files) {
+      const js = readFileSync(`${dir}/${f}`, "utf8");
+      for (const s of secrets()) expect(js.includes(s), `${f} contains a secret`).toBe(false);
+      for (const marker of ["DATABASE_URL", "SESSION_SECRET", "SIGNING_KEY_SECRET", "S3_SECRET_ACCESS_KEY", "pg-boss", "sequelize", "passwordHash"]) {
+        expect(js.includes(marker), `${f} contains ${marker}`).toBe(false);
+      }
+    }
+  });
+
+  it("writes no secret or typed password to the app's log, even after failures", async () => {
+    const { readFileSync } = await import("node:fs");
+    const user = await makeUser();
+    const c = new Client();
+    await c.post("/sign-in", { email: user.email, password: `${PASSWORD} wrong` });
+    await c.post("/sign-up", { name: "Log Check", email: user.email, password: PASSWORD, profession: "other" });
+    await c.signIn(user.email, PASSWORD);
+    await c.post("/reset-password", { email: user.email });
+    const log = readFileSync(`.run/${process.env.COUNTERSIGN_RUN ?? "test"}/app.log`, "utf8");
+    for (const s of secrets()) expect(log.includes(s), "the app log contains a secret").toBe(false);
+    expect(log).not.toMatch(/password["']?\s*[:=]\s*["'][^"']+/i);
+  });
+});

@@ -4,9 +4,8 @@ import { execFileSync } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { PDFDocument, rgb, StandardFonts } from "pdf-lib";
-import { s3 } from "../../app/platform/storage.server";
+import { listKeys } from "../../app/platform/storage.server";
 import type { Client } from "./http";
 
 export const A1_LANDSCAPE: [number, number] = [2384, 1684];
@@ -74,8 +73,9 @@ export async function upload(client: Client, projectId: string, bytes: Uint8Arra
 }
 
 export async function objectKeys(prefix: string): Promise<string[]> {
-  const out = await s3.send(new ListObjectsV2Command({ Bucket: process.env.S3_BUCKET ?? "countersign-test", Prefix: prefix }));
-  return (out.Contents ?? []).map((o) => o.Key!);
+  const out: string[] = [];
+  for await (const key of listKeys(prefix, process.env.S3_BUCKET ?? "countersign-test")) out.push(key);
+  return out;
 }
 
 export async function until<T>(check: () => Promise<T | null | undefined | false>, timeoutMs = 20_000, what = "condition"): Promise<T> {
