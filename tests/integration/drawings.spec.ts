@@ -85,6 +85,21 @@ describe("upload", () => {
     expect(await snapshot()).toEqual(before);
   });
 
+  it("keeps one revision and its object when the same bytes arrive twice at the same moment", async () => {
+    const bytes = await makeSheet({ tag: `race-${Date.now()}` });
+    const results = await Promise.all(
+      [nextSheet("RACE"), nextSheet("RACE"), nextSheet("RACE")].map((sheetNumber) => upload(as.architect, projectId(), bytes, { sheetNumber, title: "Same bytes at once" })),
+    );
+    const statuses = results.map((r) => r.status).sort();
+    expect(statuses.filter((s) => s === 201), JSON.stringify(results.map((r) => r.body))).toHaveLength(1);
+    expect(statuses.every((s) => s === 201 || s === 409)).toBe(true);
+    const stored = results.find((r) => r.status === 201)!.body.stored[0];
+    const rev = (await DrawingRevision.findByPk(stored.revisionId))!;
+    // The losers' clean-up must not take the object the winner's row names.
+    expect(await objectKeys(rev.objectKey)).toEqual([rev.objectKey]);
+    await processed(stored.revisionId);
+  });
+
   it("adds a revision to an existing sheet with the next label, or the label given", async () => {
     const sheet = nextSheet();
     await uploadOk("architect", await makeSheet({ tag: `${sheet}-1` }), { sheetNumber: sheet, title: "Revisions" });

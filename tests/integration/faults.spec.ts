@@ -9,25 +9,15 @@ import { Approval, AuditEvent, DeviationRequest, Drawing, DrawingRevision, Proje
 import { decidedRequest } from "../support/approvals";
 import { A1_LANDSCAPE, makeSheet, objectKeys, upload, until } from "../support/drawings";
 import { commitOf, putTo, relay, slotPort, startApp, type AppProcess, type Relay } from "../support/faults";
-import { makeProjectTeam, PASSWORD } from "../support/factory";
+import { makeProjectTeam, PASSWORD, signInTeam } from "../support/factory";
 import { Client, pageText } from "../support/http";
 
 type Team = Awaited<ReturnType<typeof makeProjectTeam>>;
-type Role = "manager" | "architect" | "engineer" | "site_plumber";
-const ROLES: Role[] = ["manager", "architect", "engineer", "site_plumber"];
+type Role = import("../../app/projects/permissions").Role;
 
 let team: Team;
 const started: AppProcess[] = [];
 const relays: Relay[] = [];
-
-async function clients(base: string) {
-  const out = {} as Record<Role, Client>;
-  for (const role of ROLES) {
-    out[role] = new Client(base);
-    await out[role].signIn(team.users[role].email, PASSWORD);
-  }
-  return out;
-}
 
 beforeAll(async () => {
   team = await makeProjectTeam();
@@ -53,7 +43,7 @@ describe("PostgreSQL and the file store failing in the middle of an action", () 
     // Web only: background work stays with the slot's own app, so the relays see only this process's requests.
     app = await startApp(slotPort(0), { DATABASE_URL: db.toString(), S3_ENDPOINT: `http://127.0.0.1:${s3.port}`, JOBS_WORKER: "false" });
     started.push(app);
-    on = await clients(app.base);
+    on = await signInTeam(team, app.base);
   });
 
   const projectId = () => team.project.id;
@@ -180,7 +170,7 @@ describe("the app killed while it processes a drawing", () => {
   it("hands the job to the next process once it shows no progress, and finishes it exactly once", async () => {
     const first = await startApp(slotPort(3), env);
     started.push(first);
-    const on = await clients(first.base);
+    const on = await signInTeam(team, first.base);
     const sheetNumber = `KIL-${Date.now().toString(36)}`.toUpperCase();
     const bytes = await makeSheet({ size: A1_LANDSCAPE, pages: 24, tag: sheetNumber });
     const up = await upload(on.architect, team.project.id, bytes, { sheetNumber, title: "Killed while processing" });

@@ -10,7 +10,7 @@ import { Approval, DrawingRevision, ProjectMember, sequelize } from "../../db/mo
 import { decidedRequest } from "../support/approvals";
 import { makeSheet, objectKeys, upload, until } from "../support/drawings";
 import { slotPort, startApp, type AppProcess } from "../support/faults";
-import { makeProjectTeam, makeUser, PASSWORD } from "../support/factory";
+import { makeProjectTeam, makeUser, PASSWORD, signInTeam } from "../support/factory";
 import { Client, pageText } from "../support/http";
 import { mailsTo } from "../support/mail";
 
@@ -21,15 +21,6 @@ const SCHEMA = `pgboss_two_${process.pid}`;
 let team: Awaited<ReturnType<typeof makeProjectTeam>>;
 let one: AppProcess;
 let two: AppProcess;
-
-async function signedIn(base: string) {
-  const out = {} as Record<Role, Client>;
-  for (const role of ROLES) {
-    out[role] = new Client(base);
-    await out[role].signIn(team.users[role].email, PASSWORD);
-  }
-  return out;
-}
 
 const jobs = (name: string, where: string, value: string) =>
   sequelize.query<{ state: string; retry_count: number }>(`SELECT state, retry_count FROM ${SCHEMA}.job WHERE name = :name AND data->>'${where}' = :value`, {
@@ -79,7 +70,7 @@ describe("two app servers over one database and one bucket", () => {
     let sheets: string[];
 
     beforeAll(async () => {
-      const as = await signedIn(one.base);
+      const as = await signInTeam(team, one.base);
       request = await decidedRequest(team.project.id, as);
       // Three more sheets at once, so that both workers have something to reach for at the same time.
       const ups = await Promise.all(

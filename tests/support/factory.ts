@@ -2,7 +2,7 @@
 import { hashPassword } from "../../app/accounts/password.server";
 import type { Role } from "../../app/projects/permissions";
 import { Project, ProjectMember, User } from "../../db/models";
-import { uniqueEmail } from "./http";
+import { Client, uniqueEmail } from "./http";
 
 export const PASSWORD = "correct horse battery";
 let cachedHash: Promise<string> | undefined;
@@ -33,4 +33,14 @@ export async function makeProjectTeam() {
   const other = await Project.create({ name: "Other project", siteAddress: "2 Elsewhere Road", clientName: null, description: null, createdById: outsider.id });
   await ProjectMember.create({ projectId: other.id, userId: outsider.id, role: "manager" });
   return { project, users, outsider, otherProject: other };
+}
+
+/** One signed-in client per role of a team, against `base` (the slot's app by default, or another instance). */
+export async function signInTeam(team: Awaited<ReturnType<typeof makeProjectTeam>>, base?: string) {
+  const out = {} as Record<Role, Client>;
+  for (const role of Object.keys(team.users) as Role[]) {
+    out[role] = new Client(base);
+    await out[role].signIn(team.users[role].email, PASSWORD);
+  }
+  return out;
 }
