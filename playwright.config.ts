@@ -9,7 +9,8 @@ export default defineConfig({
   timeout: 60_000,
   expect: { timeout: 10_000 },
   reporter: process.env.CI ? [["list"]] : [["list"]],
-  outputDir: "test-results",
+  // Per test stack, so two stacks running Playwright side by side never clean up each other's traces.
+  outputDir: `test-results/${process.env.COUNTERSIGN_RUN ?? "test"}`,
   use: {
     baseURL: process.env.APP_URL ?? "http://127.0.0.1:3100",
     trace: "retain-on-failure",
