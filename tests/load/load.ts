@@ -24,7 +24,8 @@
 // As a script, from a running slot (storage/profile.sh test sets APP_URL and DATABASE_URL):
 //   npx tsx tests/load/load.ts [tiny|full] [--seeded file.json] [--write]   — seeds a project of that size (or
 //   takes one seeded before), signs in as its engineer, runs the load (LOAD_CONNECTIONS, LOAD_DURATION; default 50 and 60, tiny 5 and 2) and with --write puts the
-//   figures in docs/perf/load.json and the generated part of docs/perf/load.md.
+//   figures in docs/perf/load.json and the generated part of docs/perf/load.md; --out <file> writes the LoadResults
+//   there instead (what npm run bench does, one file per run).
 import autocannon from "autocannon";
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import os from "node:os";
@@ -314,6 +315,8 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   console.log(`project: ${JSON.stringify(seeded.counts)}${from > 0 ? "" : ` (seeded in ${seeded.seconds} s)`}`);
   console.log(markdownTable(results));
   if (process.argv.includes("--write")) writeDocs(results);
+  const out = process.argv.indexOf("--out");
+  if (out > 0) writeFileSync(process.argv[out + 1]!, `${JSON.stringify(results, null, 2)}\n`);
   const { sequelize } = await import("../../db/models");
   await sequelize.close();
   const bad = results.total.errors + results.total.non2xx + results.total.timeouts;

@@ -1,21 +1,30 @@
 // Figures for docs/perf/drawings.md (run by tests/perf/run.sh, which starts the app for it):
-//  1. a large upload through the app vs a raw SDK PutObject of the same file, and the app's memory meanwhile;
-//  2. first visible page of an A1 sheet in the viewer vs pdf.js rendering the same page directly;
-//  3. compare of two A1 pages (cold and cached), with the server's own breakdown.
+//  1. a large upload through the app vs a raw @aws-sdk/lib-storage multipart Upload of the same file to the same
+//     S3 fake, and the app's memory meanwhile (BENCH_UPLOAD_RUNS times, 1 by default: each writes and sends a
+//     fresh file of BENCH_UPLOAD_MB);
+//  2. first visible page of an A1 sheet in the viewer vs pdf.js rendering the same page directly (one cold load
+//     each, not counted, then BENCH_RUNS warm ones);
+//  3. compare of two A1 pages, cold, vs rendering the same two pages alone with the same renderer at the same
+//     scale (BENCH_RUNS fresh pairs, since a pair once compared is cached), and the cached second look.
+// BENCH_PARTS=upload,viewer,compare picks parts; with BENCH_DIR set the figures go to tests/perf/report.ts.
 import { createReadStream, createWriteStream, readFileSync, statSync } from "node:fs";
 import { createRequire } from "node:module";
-import { mkdtemp, readFile, rm } from "node:fs/promises";
+import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { finished } from "node:stream/promises";
-import { PutObjectCommand, DeleteObjectCommand } from "@aws-sdk/client-s3";
+import { DeleteObjectCommand } from "@aws-sdk/client-s3";
+import { Upload } from "@aws-sdk/lib-storage";
 import { chromium } from "@playwright/test";
 import { PDFDocument, rgb, StandardFonts } from "pdf-lib";
+import { COMPARE_DPI, COMPARE_MAX_PX } from "../../app/drawings/compare.server";
+import { fileSource, openPdf, renderPage } from "../../app/drawings/pdf.server";
 import { s3 } from "../../app/platform/storage.server";
 import { DrawingRevision, sequelize } from "../../db/models";
 import { A1_LANDSCAPE, until, upload } from "../support/drawings";
 import { makeProjectTeam, PASSWORD } from "../support/factory";
 import { Client } from "../support/http";
+import { benchRuns, writeBench } from "./bench-out";
 
 const require = createRequire(import.meta.url);
 const APP_URL = process.env.APP_URL!;
@@ -23,6 +32,11 @@ const APP_PID = Number(process.env.APP_PID);
 const MB = 1024 * 1024;
 const uploadMb = Number(process.env.BENCH_UPLOAD_MB ?? 500);
 const results: Record<string, unknown> = {};
+const runs = benchRuns();
+const uploadRuns = Math.max(1, Number(process.env.BENCH_UPLOAD_RUNS ?? 1));
+const parts = new Set((process.env.BENCH_PARTS ?? "upload,viewer,compare").split(","));
+const figures: Record<string, number[]> = {};
+const keep = (k: string, v: number) => (figures[k] ??= []).push(v);
 const log = (k: string, v: unknown) => {
   results[k] = v;
   console.log(k.padEnd(44), typeof v === "object" ? JSON.stringify(v) : v);
@@ -112,52 +126,81 @@ async function heavyA1(seed: number, extra = false) {
   return doc.save();
 }
 
-async function main() {
-  const team = await makeProjectTeam();
-  const client = new Client(APP_URL);
-  await client.signIn(team.users.architect.email, PASSWORD);
-  const dir = await mkdtemp(path.join(tmpdir(), "cs-bench-"));
+/** The two pages rendered alone, as the compare does it (same library, same scale rule), from local files. */
+async function renderTwoAlone(fileA: string, fileB: string) {
+  const t0 = performance.now();
+  const [a, b] = await Promise.all([openPdf(await fileSource(fileA)), openPdf(await fileSource(fileB))]);
   try {
-    // 1. Upload through the app vs raw SDK.
-    const file = path.join(dir, "big.pdf");
+    const [pa, pb] = await Promise.all([a.getPage(1), b.getPage(1)]);
+    const [va, vb] = [pa.getViewport({ scale: 1 }), pb.getViewport({ scale: 1 })];
+    const widthPt = Math.max(va.width, vb.width);
+    const heightPt = Math.max(va.height, vb.height);
+    const scale = Math.min(COMPARE_DPI / 72, COMPARE_MAX_PX / Math.max(widthPt, heightPt));
+    const w = Math.ceil(widthPt * scale);
+    const h = Math.ceil(heightPt * scale);
+    await renderPage(pa, scale, w, h);
+    await renderPage(pb, scale, w, h);
+    return Math.round(performance.now() - t0);
+  } finally {
+    await Promise.all([a.destroy(), b.destroy()]);
+  }
+}
+
+async function uploadBench(client: Client, projectId: string, dir: string) {
+  for (let run = 1; run <= uploadRuns; run++) {
+    const file = path.join(dir, `big-${run}.pdf`);
     await writeBigPdf(file, uploadMb * MB);
     const size = statSync(file).size;
     log("upload.file_mb", Math.round(size / MB));
+    // The baseline: the SDK's own multipart upload, straight from the file to the same bucket of the same fake.
     const rawKey = `bench/raw-${Date.now()}.pdf`;
     let t0 = performance.now();
-    await s3.send(new PutObjectCommand({ Bucket: process.env.S3_BUCKET, Key: rawKey, Body: createReadStream(file), ContentLength: size, ContentType: "application/pdf" }));
+    await new Upload({ client: s3, params: { Bucket: process.env.S3_BUCKET, Key: rawKey, Body: createReadStream(file), ContentType: "application/pdf" } }).done();
     const rawS = (performance.now() - t0) / 1000;
     await s3.send(new DeleteObjectCommand({ Bucket: process.env.S3_BUCKET, Key: rawKey }));
-    log("upload.raw_sdk_put_mb_per_s", Math.round(size / MB / rawS));
+    log("upload.raw_sdk_multipart_mb_per_s", Math.round(size / MB / rawS));
     const idle = rssMb(APP_PID);
     let peak = idle;
     const sampler = setInterval(() => (peak = Math.max(peak, rssMb(APP_PID))), 100);
     t0 = performance.now();
-    const res = await streamUpload(client, team.project.id, file, "BENCH-1");
+    const res = await streamUpload(client, projectId, file, `BENCH-${run}`);
     const appS = (performance.now() - t0) / 1000;
     clearInterval(sampler);
+    await rm(file, { force: true });
     if (res.status !== 201) throw new Error(`upload failed: ${JSON.stringify(res.body)}`);
     log("upload.through_app_mb_per_s", Math.round(size / MB / appS));
     log("upload.through_app_seconds", Math.round(appS * 10) / 10);
     log("upload.raw_sdk_seconds", Math.round(rawS * 10) / 10);
     log("upload.app_rss_mb_idle_vs_peak", { idle, peak });
+    keep("upload.app_mb_s", +(size / MB / appS).toFixed(1));
+    keep("upload.raw_mb_s", +(size / MB / rawS).toFixed(1));
+    keep("upload.rss_growth_mb", peak - idle);
+  }
+}
 
-    // 2. Viewer first page vs pdf.js directly, same A1 sheet, same width, same browser.
-    const a = await heavyA1(1);
-    const b = await heavyA1(1, true);
-    const ua = await upload(client, team.project.id, a, { sheetNumber: "BENCH-A1", title: "Heavy A1" });
-    const ub = await upload(client, team.project.id, b, { sheetNumber: "BENCH-A1" });
-    const [ra, rb] = [ua.body.stored[0], ub.body.stored[0]];
-    for (const r of [ra, rb]) await until(async () => (await DrawingRevision.findByPk(r.revisionId))?.processing === "done", 60_000);
-    log("a1.sheet_kb", Math.round(a.length / 1024));
+/** Uploads a pair of revisions of one heavy A1 sheet and waits until both are processed. */
+async function a1Pair(client: Client, projectId: string, seed: number, sheetNumber: string) {
+  const a = await heavyA1(seed);
+  const b = await heavyA1(seed, true);
+  const ua = await upload(client, projectId, a, { sheetNumber, title: "Heavy A1" });
+  const ub = await upload(client, projectId, b, { sheetNumber });
+  const [ra, rb] = [ua.body.stored[0], ub.body.stored[0]];
+  for (const r of [ra, rb]) await until(async () => (await DrawingRevision.findByPk(r.revisionId))?.processing === "done", 60_000);
+  return { a, b, ra, rb };
+}
 
-    const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu"] });
+async function viewerBench(client: Client, projectId: string) {
+  const { a, ra } = await a1Pair(client, projectId, 1, "BENCH-A1");
+  log("a1.sheet_kb", Math.round(a.length / 1024));
+  const browser = await chromium.launch({ executablePath: "/usr/bin/chromium", args: ["--no-sandbox", "--disable-gpu"] });
+  try {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     await context.addCookies([{ name: "countersign_session", value: client.sessionCookie!, url: APP_URL }]);
     const page = await context.newPage();
+    // One cold load (worker and chunks not yet cached) is reported apart; the budget compares warm loads.
     const viewerMs: number[] = [];
-    for (let i = 0; i < 3; i++) {
-      await page.goto(`${APP_URL}/projects/${team.project.id}/drawings/${ra.drawingId}?rev=${ra.revisionId}`);
+    for (let i = 0; i <= runs; i++) {
+      await page.goto(`${APP_URL}/projects/${projectId}/drawings/${ra.drawingId}?rev=${ra.revisionId}`);
       const ms = await page.evaluate(async () => {
         const start = performance.timeOrigin;
         for (;;) {
@@ -183,7 +226,7 @@ async function main() {
       return route.fulfill({ contentType: "text/javascript", body: await readFile(path.join(pdfjsDir, "build", path.basename(url.pathname))) });
     });
     const directMs: number[] = [];
-    for (let i = 0; i < 3; i++) {
+    for (let i = 0; i <= runs; i++) {
       await page.goto("http://bench.local/");
       directMs.push(
         await page.evaluate(async () => {
@@ -204,25 +247,77 @@ async function main() {
       );
     }
     log("pdfjs_direct.first_page_ms", directMs);
+    figures["viewer.first_page_ms"] = viewerMs.slice(1);
+    figures["pdfjs.first_page_ms"] = directMs.slice(1);
+    figures["viewer.cold_first_page_ms"] = viewerMs.slice(0, 1);
+    figures["pdfjs.cold_first_page_ms"] = directMs.slice(0, 1);
+  } finally {
     await browser.close();
+  }
+}
 
-    // 3. Compare two A1 pages.
-    t0 = performance.now();
-    const cold = await client.json(`/api/projects/${team.project.id}/drawings/${ra.drawingId}/compare?from=${ra.revisionId}&to=${rb.revisionId}`);
+async function compareBench(client: Client, projectId: string, dir: string) {
+  // The app's renderer is warm (it has processed every upload): warm this process's pdf.js, fonts and canvas too,
+  // so the baseline does not carry a first-use cost the compare does not pay.
+  const [wa, wb] = [path.join(dir, "warm-a.pdf"), path.join(dir, "warm-b.pdf")];
+  await Promise.all([writeFile(wa, await heavyA1(7)), writeFile(wb, await heavyA1(7, true))]);
+  await renderTwoAlone(wa, wb);
+  for (let run = 1; run <= runs; run++) {
+    // A fresh pair each run: a pair once compared is answered from the cache.
+    const { a, b, ra, rb } = await a1Pair(client, projectId, 100 + run, `BENCH-CMP-${run}`);
+    const url = `/api/projects/${projectId}/drawings/${ra.drawingId}/compare?from=${ra.revisionId}&to=${rb.revisionId}`;
+    let t0 = performance.now();
+    const cold = await client.json(url);
     const coldMs = Math.round(performance.now() - t0);
+    if (cold.status !== 200) throw new Error(`compare answered ${cold.status}`);
     t0 = performance.now();
-    await client.json(`/api/projects/${team.project.id}/drawings/${ra.drawingId}/compare?from=${ra.revisionId}&to=${rb.revisionId}`);
+    await client.json(url);
     const warmMs = Math.round(performance.now() - t0);
+    const [fa, fb] = [path.join(dir, "a.pdf"), path.join(dir, "b.pdf")];
+    await Promise.all([writeFile(fa, a), writeFile(fb, b)]);
+    const aloneMs = await renderTwoAlone(fa, fb);
     log("compare.a1_cold_ms", coldMs);
     log("compare.a1_cached_ms", warmMs);
+    log("compare.render_two_pages_alone_ms", aloneMs);
     log("compare.server_breakdown_ms", cold.body.visual.timingsMs);
     log("compare.render_px", `${cold.body.visual.widthPx}x${cold.body.visual.heightPx}`);
     log("compare.regions_found", cold.body.visual.regions.length);
+    keep("compare.cold_ms", coldMs);
+    keep("compare.cached_ms", warmMs);
+    keep("compare.render_alone_ms", aloneMs);
+    for (const [k, v] of Object.entries(cold.body.visual.timingsMs as Record<string, number>)) keep(`compare.server_${k}_ms`, v);
+    results.compareRenderPx = `${cold.body.visual.widthPx}x${cold.body.visual.heightPx}`;
+    results.compareDpi = Math.round(cold.body.visual.scale * 72);
+  }
+}
+
+async function main() {
+  const team = await makeProjectTeam();
+  const client = new Client(APP_URL);
+  await client.signIn(team.users.architect.email, PASSWORD);
+  const dir = await mkdtemp(path.join(tmpdir(), "cs-bench-"));
+  // Each part reports on its own: one failing leaves the others' figures standing.
+  const failed: string[] = [];
+  const part = async (name: string, run: () => Promise<void>) => {
+    if (!parts.has(name)) return;
+    try {
+      await run();
+    } catch (error) {
+      console.error(`${name} failed:`, error);
+      failed.push(name);
+    }
+  };
+  try {
+    await part("upload", () => uploadBench(client, team.project.id, dir));
+    await part("viewer", () => viewerBench(client, team.project.id));
+    await part("compare", () => compareBench(client, team.project.id, dir));
   } finally {
     await rm(dir, { recursive: true, force: true });
     await sequelize.close();
   }
   console.log("\nJSON", JSON.stringify(results));
+  writeBench("drawings", figures, { uploadMb, uploadRuns, failed, compareRenderPx: results.compareRenderPx, compareDpi: results.compareDpi });
+  if (failed.length) process.exitCode = 1;
 }
 
 await main();
