@@ -4,10 +4,10 @@
 import { createHash } from "node:crypto";
 import { PassThrough, Readable } from "node:stream";
 import { ZipArchive } from "archiver";
-import { Op } from "sequelize";
+import { Op, type WhereOptions } from "sequelize";
 import { Approval, DeviationRequest, InstallationRecord, sequelize, User } from "../../db/models";
 import { audit } from "../platform/audit.server";
-import { deleteObject, getObjectStream, presignDownload, putObject } from "../platform/storage.server";
+import { discardObjects, getObjectStream, presignDownload, putObject } from "../platform/storage.server";
 import { checkMove } from "../requests/workflow";
 import { notifyTeam } from "./supersession.server";
 
@@ -157,7 +157,12 @@ export async function recordInstallation(
       await notifyTeam(projectId, actor.id, `${a.reference} installed as approved`, `${actor.name} recorded ${a.reference} (approval v${a.n}) as installed as approved on ${input.installedOn}.`, `/projects/${projectId}/approvals/${approvalId}`, transaction);
     });
   } catch (error) {
-    for (const s of stored) await deleteObject(s.key).catch(() => undefined);
+    // Photos are named by content: another record may hold the same photo, and keeps it.
+    await discardObjects(stored.map((s) => s.key), async (key) => {
+      // JSONB containment: a row whose photo list has an entry with this key (Sequelize's types cannot say it).
+      const where = { projectId, photoKeys: { [Op.contains]: [{ key }] } } as WhereOptions<InstallationRecord>;
+      return (await InstallationRecord.count({ where })) > 0;
+    });
     throw error;
   }
 }

@@ -8,7 +8,7 @@ import { audit } from "../platform/audit.server";
 import { UUID } from "../platform/failures.server";
 import { env } from "../platform/env.server";
 import type { SmallFile } from "../platform/small-upload.server";
-import { deleteObject, putObject } from "../platform/storage.server";
+import { discardObjects, putObject } from "../platform/storage.server";
 import { decryptPrivateKey, encryptPrivateKey, issueSigningIdentity, type SigningIdentity } from "./identity.server";
 
 export class VerificationError extends Error {
@@ -93,7 +93,8 @@ export async function verifyRegistration(
       );
     });
   } catch (error) {
-    if (evidenceKey) await deleteObject(evidenceKey).catch(() => undefined);
+    // Evidence is named by content: the same document may back another engineer's verification, and stays.
+    if (evidenceKey) await discardObjects([evidenceKey], async (key) => (await RegistrationVerification.count({ where: { evidenceKey: key } })) > 0);
     throw error;
   }
 }
