@@ -12,7 +12,7 @@ import type { BenchFile } from "./bench-out";
 import type { LoadResults } from "../load/load";
 
 const ROOT = path.resolve(import.meta.dirname, "../..");
-const DIR = process.env.BENCH_DIR ?? path.join(ROOT, ".run/bench");
+export const BENCH_DIR = process.env.BENCH_DIR ?? path.join(ROOT, ".run/bench");
 
 export interface Stat {
   min: number;
@@ -43,20 +43,25 @@ export const stat = (xs: number[]): Stat => ({ min: Math.min(...xs), median: med
 
 class Missing extends Error {}
 
-function bench(name: string): BenchFile {
-  const file = path.join(DIR, `${name}.json`);
-  if (!existsSync(file)) throw new Missing(`${name} wrote no figures (see ${path.relative(ROOT, path.join(DIR, `${name}.log`))})`);
-  return JSON.parse(readFileSync(file, "utf8")) as BenchFile;
-}
-function fig(name: string, key: string) {
-  const xs = bench(name).figures[key];
-  if (!xs?.length) throw new Missing(`${name}: no ${key} (see ${path.relative(ROOT, path.join(DIR, `${name}.log`))})`);
-  return xs;
-}
-function loads(): LoadResults[] {
-  const files = existsSync(DIR) ? readdirSync(DIR).filter((f) => /^load-\d+\.json$/.test(f)) : [];
-  if (!files.length) throw new Missing(`the load wrote no figures (see ${path.relative(ROOT, path.join(DIR, "load.log"))})`);
-  return files.map((f) => JSON.parse(readFileSync(path.join(DIR, f), "utf8")) as LoadResults);
+/** Readers of one run's folder of figures; each throws Missing when a benchmark left nothing. */
+function reader(dir: string) {
+  const logOf = (name: string) => path.relative(ROOT, path.join(dir, `${name}.log`));
+  const bench = (name: string): BenchFile => {
+    const file = path.join(dir, `${name}.json`);
+    if (!existsSync(file)) throw new Missing(`${name} wrote no figures (see ${logOf(name)})`);
+    return JSON.parse(readFileSync(file, "utf8")) as BenchFile;
+  };
+  const fig = (name: string, key: string) => {
+    const xs = bench(name).figures[key];
+    if (!xs?.length) throw new Missing(`${name}: no ${key} (see ${logOf(name)})`);
+    return xs;
+  };
+  const loads = (): LoadResults[] => {
+    const files = existsSync(dir) ? readdirSync(dir).filter((f) => /^load-\d+\.json$/.test(f)) : [];
+    if (!files.length) throw new Missing(`the load wrote no figures (see ${logOf("load")})`);
+    return files.map((f) => JSON.parse(readFileSync(path.join(dir, f), "utf8")) as LoadResults);
+  };
+  return { bench, fig, loads };
 }
 
 const x = (a: number, b: number) => `${(a / b).toFixed(2)}×`;
@@ -71,7 +76,8 @@ function row(what: string, unit: string, budget: string, build: () => Omit<Repor
   }
 }
 
-export function rows(): ReportRow[] {
+export function rows(dir = BENCH_DIR): ReportRow[] {
+  const { bench, fig, loads } = reader(dir);
   const out: ReportRow[] = [];
   out.push(
     row("pressure-balance solve, 1,000 outlets", "ms", "≤ 5 ms median", () => {
