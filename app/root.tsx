@@ -1,3 +1,5 @@
+// Must stay the first import: it configures zod before any schema module is evaluated.
+import "./platform/zod-browser";
 import { Links, Meta, Outlet, Scripts, ScrollRestoration, useRouteLoaderData } from "react-router";
 import fontRegular from "@fontsource/inter-tight/latin-400.css?url";
 import fontMedium from "@fontsource/inter-tight/latin-500.css?url";
