@@ -38,7 +38,7 @@ export function Overlay({ visual, src }: { visual: VisualCompare; src: string })
 
   return (
     <div className="grid gap-4 lg:grid-cols-[1fr_18rem]">
-      <div className="max-h-[75vh] overflow-auto rounded-md border border-rule bg-white">
+      <div role="region" aria-label="Overlay of the two revisions" tabIndex={0} className="max-h-[75vh] overflow-auto rounded-md border border-rule bg-white">
         <div className="relative" style={{ width: "100%", minWidth: 600 }}>
           <img src={src} alt={`Overlay of the two revisions, page ${visual.page}`} className="block w-full" data-testid="compare-overlay" />
           <svg viewBox={`0 0 ${visual.widthPt} ${visual.heightPt}`} className="absolute inset-0 h-full w-full" aria-hidden>

@@ -196,7 +196,7 @@ export default function Viewer({ fileUrl, pages: knownPages, thumbUrl, initial, 
             </button>
           ))}
         </nav>
-        <div ref={scroller} tabIndex={0} aria-label="Sheet" className={`relative max-h-[75vh] min-h-[50vh] flex-1 overflow-auto rounded-md border border-rule bg-paper-deep p-4 ${pan ? "cursor-grab select-none" : ""}`} {...panHandlers}>
+        <div ref={scroller} role="region" tabIndex={0} aria-label="Sheet" className={`relative max-h-[75vh] min-h-[50vh] flex-1 overflow-auto rounded-md border border-rule bg-paper-deep p-4 ${pan ? "cursor-grab select-none" : ""}`} {...panHandlers}>
           <Document
             file={fileUrl}
             options={options}

@@ -66,7 +66,7 @@ export function Thread({ projectId, requestId, comments, maxBytes }: { projectId
         <div className="relative">
           <textarea
             id="comment-body" ref={box} name="body" rows={3} value={body} className={inputClass}
-            aria-describedby="comment-hint" aria-autocomplete="list" aria-controls="mention-list"
+            aria-describedby="comment-hint" aria-autocomplete="list" aria-controls={suggestions.length ? "mention-list" : undefined}
             onChange={(e) => typed(e.target.value, e.target.selectionStart ?? e.target.value.length)}
             onKeyDown={(e) => { if (e.key === "Escape") setQuery(null); }}
           />

@@ -274,7 +274,7 @@ export default function MarkupCanvas(props: CanvasProps) {
         </div>
         {notice ? <p role="status" data-testid="canvas-notice" className={`text-sm ${notice.tone === "fail" ? "font-semibold text-fail" : "text-ok"}`}>{notice.tone === "fail" ? "⚠ " : "✓ "}{notice.text}</p> : null}
         {!canMarkUp ? <p className="text-xs text-ink-soft">{canPin ? "Click the sheet to place a numbered pin." : "Read-only: markups are drawn by the engineer."}</p> : null}
-        <div ref={wrapper} data-testid="sheet-scroller" className="relative max-h-[75vh] overflow-auto rounded-md border border-rule bg-paper-deep p-3">
+        <div ref={wrapper} data-testid="sheet-scroller" role="region" aria-label="Sheet" tabIndex={0} className="relative max-h-[75vh] overflow-auto rounded-md border border-rule bg-paper-deep p-3">
           <div className="relative bg-white shadow" style={{ width: w, height: h }}>
             <Document file={revision.fileUrl} loading={<p className="p-6 text-ink-soft">Opening the sheet…</p>} error={<p role="alert" className="p-6 font-semibold text-fail">The sheet could not be opened. Reload the page to try again.</p>}>
               <Page pageNumber={page} width={w} renderAnnotationLayer={false} renderTextLayer={false} loading="" />

@@ -48,7 +48,11 @@ export default function SignApproval({ loaderData, actionData }: Route.Component
     <div>
       <PageTitle title={`Sign approval v${record.nextVersion} of ${record.request.reference}`} lead="This is exactly what your signature will cover. Read it through; the server checks it again, and recomputes every calculation, when you sign." />
       <div className="grid gap-6 lg:grid-cols-3">
-        <Panel className="lg:col-span-2"><RecordView record={record} /></Panel>
+        <Panel className="lg:col-span-2">
+          {/* The record's sections are h3s, as on the approval page; this names the panel they sit in. */}
+          <h2 className="sr-only">The record you sign</h2>
+          <RecordView record={record} />
+        </Panel>
         <Panel className="h-fit">
           <p className="mb-4 flex gap-2 rounded-md border border-warn/40 bg-warn/5 p-3 text-xs text-ink"><AlertIcon className="mt-0.5 shrink-0 text-warn" /> {CAUTION}</p>
           {canSign ? (
