@@ -10,6 +10,7 @@ import {
   S3Client,
   S3ServiceException,
 } from "@aws-sdk/client-s3";
+import { Upload } from "@aws-sdk/lib-storage";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "./env.server";
 
@@ -42,9 +43,17 @@ function unavailable(error: unknown): never {
   throw new StorageUnavailableError(error);
 }
 
+/** Bodies above this go up as a multipart upload, several parts at once; smaller ones in one request. */
+const MULTIPART_FROM_BYTES = 32 * 1024 * 1024;
+
 export async function putObject(key: string, body: Readable | Uint8Array, options: { contentType: string; contentLength: number }) {
   try {
-    await s3.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: options.contentType, ContentLength: options.contentLength }));
+    if (options.contentLength > MULTIPART_FROM_BYTES) {
+      // A failed part aborts the whole multipart upload (no parts are left behind in the store).
+      await new Upload({ client: s3, params: { Bucket, Key: key, Body: body, ContentType: options.contentType }, partSize: 16 * 1024 * 1024, queueSize: 4 }).done();
+    } else {
+      await s3.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: options.contentType, ContentLength: options.contentLength }));
+    }
   } catch (error) {
     unavailable(error);
   }

@@ -3,7 +3,9 @@
 // superseding, compare with a change known in advance, transmittals by e-mail, the API, and access.
 import { execFileSync } from "node:child_process";
 import { readFileSync } from "node:fs";
-import { PutObjectCommand } from "@aws-sdk/client-s3";
+import { createHash } from "node:crypto";
+import { GetObjectCommand, PutObjectCommand } from "@aws-sdk/client-s3";
+import { PDFDocument, PDFName } from "pdf-lib";
 import { beforeAll, describe, expect, it } from "vitest";
 import { AuditEvent, Drawing, DrawingRevision, TransmittalRecipient } from "../../db/models";
 import { s3 } from "../../app/platform/storage.server";
@@ -72,6 +74,21 @@ describe("upload", () => {
     expect(thumb.headers.get("content-type")).toBe("image/webp");
     expect(await AuditEvent.count({ where: { subjectId: stored!.revisionId, action: "revision.uploaded" } })).toBe(1);
   });
+
+  it("stores a large sheet (sent to the store in parts) byte for byte", async () => {
+    // A one-page sheet carrying an unused 40 MB stream: over the size that goes up as a multipart upload.
+    const doc = await PDFDocument.load(await makeSheet({ tag: `large-${Date.now()}` }));
+    const filler = new Uint8Array(40 * 1024 * 1024);
+    for (let i = 0; i < filler.length; i += 4096) filler[i] = i & 0xff;
+    doc.catalog.set(PDFName.of("Filler"), doc.context.register(doc.context.stream(filler)));
+    const bytes = await doc.save({ useObjectStreams: false });
+    const [stored] = await uploadOk("architect", bytes, { sheetNumber: nextSheet("BIG"), title: "Large sheet" });
+    const rev = (await DrawingRevision.findByPk(stored!.revisionId))!;
+    const body = (await s3.send(new GetObjectCommand({ Bucket: process.env.S3_BUCKET ?? "countersign-test", Key: rev.objectKey }))).Body!;
+    const back = Buffer.from(await body.transformToByteArray());
+    expect(back.length).toBe(bytes.length);
+    expect(createHash("sha256").update(back).digest("hex")).toBe(stored!.sha256);
+  }, 60_000);
 
   it("recognises the same bytes uploaded twice and stores nothing new", async () => {
     const bytes = await makeSheet({ tag: "dedupe" });
