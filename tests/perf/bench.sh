@@ -7,7 +7,9 @@
 #   BENCH_HEAVY_RUNS=1      runs of the large upload and of the 60 s load (each takes minutes)
 #   BENCH_UPLOAD_MB=500     size of the large upload
 #   BENCH_SLOT=7, LOAD_SLOT=6   the test slots used (own database, fakes, build folder, app; recreated here)
-#   BENCH_ONLY="balance signing drawings markups routes-js load start"   a subset (the report still lists all)
+#   BENCH_ONLY="balance signing drawings markups routes-js load start"   rerun a subset: the others' figures of
+#                           the last run stay in .run/bench/ and the report combines them (it lists every row)
+#   BENCH_PARTS=upload,viewer,compare   parts of the drawings benchmark
 #   BENCH_README=0          leave README.md alone
 set -uo pipefail
 ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)
@@ -17,8 +19,11 @@ export BENCH_DIR="$ROOT/.run/bench"
 export BENCH_RUNS=${BENCH_RUNS:-3}
 HEAVY=${BENCH_HEAVY_RUNS:-1}
 ONLY=" ${BENCH_ONLY:-balance signing drawings markups routes-js load start} "
-rm -rf "$BENCH_DIR"
+if [ -z "${BENCH_ONLY:-}" ]; then rm -rf "$BENCH_DIR"; fi
 mkdir -p "$BENCH_DIR"
+for name in $ONLY; do rm -f "$BENCH_DIR/$name.json" "$BENCH_DIR/$name.log"; done
+if [[ "$ONLY" == *" load "* ]]; then rm -f "$BENCH_DIR"/load-*.json; fi
+rm -f "$BENCH_DIR/failed.txt"
 
 log() { printf '\033[1m▸ %s\033[0m\n' "$*"; }
 wanted() { [[ "$ONLY" == *" $1 "* ]]; }

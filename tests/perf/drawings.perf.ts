@@ -178,12 +178,26 @@ async function uploadBench(client: Client, projectId: string, dir: string) {
   }
 }
 
+/**
+ * Once more if the request never got out: after the long upload, a pooled keep-alive socket the server has just
+ * closed (its idle timeout) can be picked for the next POST, which fetch does not retry by itself.
+ */
+async function retryStale<T>(send: () => Promise<T>): Promise<T> {
+  try {
+    return await send();
+  } catch (error) {
+    const code = (error as { cause?: { code?: string } }).cause?.code;
+    if (!(error instanceof TypeError) || !["EPIPE", "ECONNRESET", "UND_ERR_SOCKET"].includes(code ?? "")) throw error;
+    return send();
+  }
+}
+
 /** Uploads a pair of revisions of one heavy A1 sheet and waits until both are processed. */
 async function a1Pair(client: Client, projectId: string, seed: number, sheetNumber: string) {
   const a = await heavyA1(seed);
   const b = await heavyA1(seed, true);
-  const ua = await upload(client, projectId, a, { sheetNumber, title: "Heavy A1" });
-  const ub = await upload(client, projectId, b, { sheetNumber });
+  const ua = await retryStale(() => upload(client, projectId, a, { sheetNumber, title: "Heavy A1" }));
+  const ub = await retryStale(() => upload(client, projectId, b, { sheetNumber }));
   const [ra, rb] = [ua.body.stored[0], ub.body.stored[0]];
   for (const r of [ra, rb]) await until(async () => (await DrawingRevision.findByPk(r.revisionId))?.processing === "done", 60_000);
   return { a, b, ra, rb };

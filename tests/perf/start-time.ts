@@ -39,22 +39,33 @@ function cleanEnv() {
   return env;
 }
 
+const signal = (pid: number, sig: NodeJS.Signals) => {
+  try {
+    process.kill(pid, sig);
+  } catch {
+    /* already gone */
+  }
+};
+
+async function portFreed(port: number, ms: number) {
+  for (const until = performance.now() + ms; performance.now() < until; await sleep(100)) if (!(await portBusy(port))) return true;
+  return false;
+}
+
 async function stop(npm: number) {
-  try {
-    process.kill(Number(readFileSync(path.join(ROOT, ".run/dev/app.pid"), "utf8")), "SIGTERM");
-  } catch {
-    /* already gone */
-  }
-  try {
-    process.kill(-npm, "SIGTERM");
-  } catch {
-    /* already gone */
-  }
+  const app = Number(readFileSync(path.join(ROOT, ".run/dev/app.pid"), "utf8"));
+  signal(app, "SIGTERM");
+  signal(-npm, "SIGTERM");
   spawnSync("bash", ["storage/fakes.sh", "down", "dev"], { cwd: ROOT, env: { ...cleanEnv(), S3_PORT: String(DEV_PORTS.s3) }, stdio: "ignore" });
-  for (let i = 0; i < 100 && (await portBusy(DEV_PORTS.app)); i++) await sleep(100);
+  // On a loaded machine the app can take a while to close its pools; the next start must not find it answering.
+  if (!(await portFreed(DEV_PORTS.app, 30_000))) {
+    signal(app, "SIGKILL");
+    if (!(await portFreed(DEV_PORTS.app, 10_000))) throw new Error(`:${DEV_PORTS.app} still answers after stopping the app`);
+  }
 }
 
 async function startOnce(log: string): Promise<{ seconds: number; rebuilt: boolean }> {
+  if (await portBusy(DEV_PORTS.app)) throw new Error(`:${DEV_PORTS.app} answers before npm start was run`);
   const out = openSync(log, "w");
   const t0 = performance.now();
   const npm = spawn("npm", ["start"], { cwd: ROOT, env: cleanEnv(), detached: true, stdio: ["ignore", out, out] });
