@@ -1,13 +1,15 @@
-// Loads the demo scenario once (skips when the demo manager already exists). `tsx db/seed.ts`
+// Loads the demo scenario once (skips when the demo manager already exists). `tsx db/seed.ts`, or from db/start.ts.
 import { hashPassword } from "../app/accounts/password.server";
 import { DEMO_PASSWORD, DEMO_PEOPLE, DEMO_PROJECT, DEMO_REQUESTS } from "./demo";
 import { createHash } from "node:crypto";
+import { pathToFileURL } from "node:url";
 import { processRevision } from "../app/drawings/processing.server";
 import { putObject } from "../app/platform/storage.server";
 import { drawDemoSheet, DEMO_SHEETS } from "./demo-sheets";
 import { DeviationRequest, Drawing, DrawingRevision, Project, ProjectMember, RequestVersion, sequelize, User } from "./models";
 
-try {
+/** Loads whatever part of the demo is missing; leaves the connection open for the caller. */
+export async function loadDemo() {
   const manager = DEMO_PEOPLE.find((p) => p.role === "manager")!;
   if (await User.findOne({ where: { email: manager.email } })) {
     console.log("demo data: already loaded");
@@ -44,8 +46,15 @@ try {
   }
   await seedRequests();
   await seedSheets();
-} finally {
-  await sequelize.close();
+}
+
+// Run as a command (`tsx db/seed.ts`), not when imported by db/start.ts.
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  try {
+    await loadDemo();
+  } finally {
+    await sequelize.close();
+  }
 }
 
 /** The demo requests, added once (also to a demo project loaded before requests existed). */

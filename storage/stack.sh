@@ -35,18 +35,23 @@ os_deps() {
   if [ ${#missing[@]} -gt 0 ]; then log "installing Debian packages: ${missing[*]}"; apt_install "${missing[@]}"; fi
 }
 
+# Starts PostgreSQL and the fakes side by side. `services_up PROFILE` also migrates; `start` migrates itself (in
+# the same process as the demo) and passes "no-migrate".
 services_up() {
   local profile=$1
   # shellcheck source=storage/profile.sh
   source storage/profile.sh "$profile"
-  log "PostgreSQL"
+  log "PostgreSQL, S3 and mail fakes"
+  if [ "$profile" = test ]; then bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null; rm -rf "storage/.data/$COUNTERSIGN_RUN"; fi
+  bash storage/fakes.sh up "$COUNTERSIGN_RUN" &
+  local fakes=$!
   bash db/postgres.sh up
   if [ "$profile" = test ]; then bash db/postgres.sh recreatedb "$COUNTERSIGN_DB"; else bash db/postgres.sh createdb "$COUNTERSIGN_DB"; fi
-  log "S3 and mail fakes"
-  if [ "$profile" = test ]; then bash storage/fakes.sh down "$COUNTERSIGN_RUN" >/dev/null; rm -rf "storage/.data/$COUNTERSIGN_RUN"; fi
-  bash storage/fakes.sh up "$COUNTERSIGN_RUN"
-  log "migrations"
-  tsx db/migrate.ts up
+  wait "$fakes"
+  if [ "${2:-}" != no-migrate ]; then
+    log "migrations"
+    tsx db/migrate.ts up
+  fi
 }
 
 build_if_stale() {
@@ -79,16 +84,16 @@ start() {
   npm_deps
   os_deps
   mkdir -p .run/dev
-  services_up dev
-  log "demo data"
-  tsx db/seed.ts
+  services_up dev no-migrate
+  log "migrations and demo data"
+  tsx db/start.ts .run/dev/sign-ins.txt
   build_if_stale
   serve_background
   cat <<MSG
 
   Countersign is running at $APP_URL
   Mail inbox (local fake): $MAIL_API_URL
-$(tsx db/sign-ins.ts)
+$(cat .run/dev/sign-ins.txt)
 
   Stop with Ctrl-C (the app) and \`npm run stop\` (database and fakes).
 MSG
