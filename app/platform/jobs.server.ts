@@ -38,10 +38,15 @@ async function boot(): Promise<PgBoss> {
   boss.on("error", (error) => console.error("job queue:", error.message));
   await boss.start();
   for (const d of definitions.values()) await register(boss, d);
+  return boss;
+}
+
+// Run once the queue is up, not as part of starting it: a task that queues work (re-queueing what a stopped
+// process left) calls `startJobs()` itself, and waiting for it inside `boot` would wait for itself forever.
+async function runStartTasks() {
   const tasks = onStarted;
   onStarted = [];
   for (const task of tasks) await task().catch((error) => console.error("job queue start-up task:", error));
-  return boss;
 }
 
 const registered = new Set<string>();
@@ -65,10 +70,13 @@ async function register(boss: PgBoss, d: JobDefinition<any>) {
 
 /** The started queue (starting it on first use). A failed start is retried on the next call. */
 export function startJobs(): Promise<PgBoss> {
-  starting ??= boot().catch((error) => {
-    starting = undefined;
-    throw error;
-  });
+  if (!starting) {
+    starting = boot().catch((error) => {
+      starting = undefined;
+      throw error;
+    });
+    starting.then(runStartTasks, () => {});
+  }
   return starting;
 }
 
@@ -104,10 +112,10 @@ export async function stopJobs() {
 
 // In the built app server, start right after every module has declared its jobs, so work queued before a
 // restart (or by another server) is picked up without waiting for a request. Scripts and tests start it lazily.
-if (typeof import.meta.env !== "undefined" && import.meta.env.PROD && !process.env.VITEST && env.JOBS_WORKER) {
-  setTimeout(() => void startJobs().catch((error) => console.error("job queue did not start:", (error as Error).message)), 0);
-  // The HTTP server closes on these signals, but the queue's timers would keep the process (and its worker, with
-  // old code) alive: stop the queue and leave, so a stopped server really stops.
+if (typeof import.meta.env !== "undefined" && import.meta.env.PROD && !process.env.VITEST) {
+  if (env.JOBS_WORKER) setTimeout(() => void startJobs().catch((error) => console.error("job queue did not start:", (error as Error).message)), 0);
+  // The HTTP server closes on these signals, but the queue's timers (also of a web-only process, whose queue starts
+  // with its first job) would keep the process, and a worker with old code, alive: stop the queue and leave.
   for (const signal of ["SIGTERM", "SIGINT"] as const) {
     process.once(signal, () => {
       const force = setTimeout(() => process.exit(0), 12_000);

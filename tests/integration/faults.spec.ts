@@ -214,3 +214,37 @@ describe("the app killed while it processes a drawing", () => {
     await second.stop();
   }, 150_000);
 });
+
+describe("an app that starts while processing is left queued", () => {
+  const JOBS_SCHEMA = "faults_boot_jobs";
+
+  afterAll(async () => {
+    await sequelize.query(`DROP SCHEMA IF EXISTS ${JOBS_SCHEMA} CASCADE`).catch(() => undefined);
+  });
+
+  // Its start-up task re-queues that work, and queueing waits for the queue to be up: the task once waited for
+  // itself, and every upload to that process hung.
+  it("queues the left work again and still answers uploads at once", async () => {
+    const on = await signInTeam(team);
+    const sheetNumber = `BOOT-${Date.now().toString(36)}`.toUpperCase();
+    const left = await upload(on.architect, team.project.id, await makeSheet({ tag: sheetNumber }), { sheetNumber, title: "Left queued" });
+    expect(left.status, JSON.stringify(left.body)).toBe(201);
+    const revisionId = left.body.stored[0].revisionId as string;
+    await until(async () => (await DrawingRevision.findByPk(revisionId))?.processing === "done", 30_000, "the first processing");
+    // As a stopped process leaves it: queued more than a minute ago, with no job.
+    await sequelize.query(`UPDATE drawing_revisions SET processing = 'queued', updated_at = now() - interval '2 minutes' WHERE id = :id`, { replacements: { id: revisionId } });
+
+    const app = await startApp(slotPort(4), { JOBS_SCHEMA, JOBS_WORKER: "false" });
+    started.push(app);
+    const architect = (await signInTeam(team, app.base)).architect;
+    const next = `BOOT2-${Date.now().toString(36)}`.toUpperCase();
+    const t0 = Date.now();
+    const res = await upload(architect, team.project.id, await makeSheet({ tag: next }), { sheetNumber: next, title: "After start" });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(Date.now() - t0).toBeLessThan(15_000);
+    const jobs = (await sequelize.query(`SELECT data->>'revisionId' AS id FROM ${JOBS_SCHEMA}.job WHERE name = 'revision.process'`, { type: "SELECT" })) as { id: string }[];
+    expect(jobs.map((j) => j.id)).toEqual(expect.arrayContaining([revisionId, res.body.stored[0].revisionId]));
+    await app.stop();
+    await sequelize.query(`UPDATE drawing_revisions SET processing = 'done' WHERE id = :id`, { replacements: { id: revisionId } });
+  }, 60_000);
+});
