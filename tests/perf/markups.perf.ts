@@ -50,11 +50,13 @@ async function main() {
   await page.getByRole("button", { name: "Sign in" }).click();
   await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
   const firstDraws: number[] = [];
+  const layerDraws: number[] = [];
   const runs = benchRuns();
   for (let run = 0; run <= runs; run++) {
     await page.goto(`/projects/${team.project.id}/requests/${id}/sheet`);
     await page.waitForFunction(() => document.querySelector<HTMLElement>("[data-testid=sheet-scroller]")?.dataset.drawnAt, null, { timeout: 60_000 });
     firstDraws.push(Number(await page.getByTestId("sheet-scroller").getAttribute("data-drawn-at")));
+    layerDraws.push(Number(await page.getByTestId("sheet-scroller").getAttribute("data-draw-ms")));
   }
   await page.getByLabel("Zoom").selectOption("2");
   await page.waitForTimeout(1500);
@@ -81,6 +83,7 @@ async function main() {
     "markups",
     {
       "first_draw_ms": firstDraws.slice(1).map(Math.round),
+      "layer_draw_ms": layerDraws.slice(1).map((v) => +v.toFixed(1)),
       "cold_first_draw_ms": firstDraws.slice(0, 1).map(Math.round),
       "pan_p95_frame_ms": passes.map((f) => +pct(f, 95).toFixed(1)),
       "pan_median_frame_ms": passes.map((f) => +pct(f, 50).toFixed(1)),
