@@ -1,13 +1,12 @@
 // CLI: `tsx db/migrate.ts up|down [--to 0]`. Reads DATABASE_URL like the app does.
 import { sequelize } from "./connection";
-import { createMigrator } from "./migrator";
+import { createMigrator, migrateUp } from "./migrator";
 
 const [command = "up", ...rest] = process.argv.slice(2);
 const migrator = createMigrator(sequelize);
 try {
   if (command === "up") {
-    const done = await migrator.up();
-    console.log(done.length ? `migrations applied: ${done.map((m) => m.name).join(", ")}` : "migrations: up to date");
+    await migrateUp(sequelize);
   } else if (command === "down") {
     const to = rest[0] === "--to" ? (rest[1] === "0" ? 0 : rest[1]) : undefined;
     const done = await migrator.down(to === undefined ? undefined : { to: to as 0 });

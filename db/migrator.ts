@@ -15,3 +15,9 @@ export function createMigrator(sequelize: Sequelize) {
     logger: undefined,
   });
 }
+
+/** Applies what is pending and says what it did (the line `npm start`, `npm test` and `npm run migrate` print). */
+export async function migrateUp(sequelize: Sequelize) {
+  const done = await createMigrator(sequelize).up();
+  console.log(done.length ? `migrations applied: ${done.map((m) => m.name).join(", ")}` : "migrations: up to date");
+}

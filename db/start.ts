@@ -5,12 +5,11 @@ import { writeFileSync } from "node:fs";
 import { ROLE_LABELS } from "../app/projects/permissions";
 import { sequelize } from "./connection";
 import { DEMO_PASSWORD, DEMO_PEOPLE } from "./demo";
-import { createMigrator } from "./migrator";
+import { migrateUp } from "./migrator";
 import { loadDemo } from "./seed";
 
 try {
-  const done = await createMigrator(sequelize).up();
-  console.log(done.length ? `migrations applied: ${done.map((m) => m.name).join(", ")}` : "migrations: up to date");
+  await migrateUp(sequelize);
   await loadDemo();
 } finally {
   await sequelize.close();

@@ -2,7 +2,9 @@
 // `data({ message, issues }, { status })` for the error boundary or the form.
 import { data } from "react-router";
 import { isDatabaseUnavailable } from "../../db/connection";
-import { apiError, BodyError, readJsonBody } from "../platform/http.server";
+import { readJsonBody } from "../platform/body.server";
+import { DomainError } from "../platform/failures.server";
+import { apiError } from "../platform/http.server";
 import { CalculationError } from "./calculations.server";
 
 const DB_DOWN = "Countersign cannot reach its database right now. Nothing was saved.";
@@ -33,7 +35,8 @@ export async function readJson(request: Request): Promise<unknown> {
   try {
     return await readJsonBody(request);
   } catch (error) {
-    if (error instanceof BodyError) throw apiError(error.status, error.message, error.issues.length ? { issues: error.issues } : {});
+    // Calculation routes answer through their own forApi, which knows CalculationError only.
+    if (error instanceof DomainError) throw apiError(error.status, error.message, error.issues?.length ? { issues: error.issues } : {});
     throw error;
   }
 }

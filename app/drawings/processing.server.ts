@@ -4,6 +4,7 @@
 import { Op } from "sequelize";
 import { DrawingRevision, isDatabaseUnavailable, type PageSize, type TextRun } from "../../db/models";
 import { audit } from "../platform/audit.server";
+import { env } from "../platform/env.server";
 import { activeJobs, defineJob, failJob, whenJobsStart } from "../platform/jobs.server";
 import { putObject, StorageUnavailableError } from "../platform/storage.server";
 import { DrawingError, keys } from "./errors";
@@ -53,7 +54,8 @@ export async function requeueStalledProcessing(now = Date.now()) {
   return jobs.length;
 }
 
-whenJobsStart(async () => {
+// Only processes that run the worker watch: a web-only process has no business polling the queue.
+if (env.JOBS_WORKER) whenJobsStart(async () => {
   const timer = setInterval(() => void requeueStalledProcessing().catch((e) => console.error("stalled processing check:", (e as Error).message)), STALL_CHECK_EVERY_MS);
   timer.unref();
 });

@@ -31,9 +31,9 @@ const schema = z.object({
   UPLOAD_TMP_DIR: z.string().optional(),
   // Lifetime of presigned download links, in seconds.
   DOWNLOAD_URL_TTL_SECONDS: z.coerce.number().int().min(30).max(3600).default(300),
-  // Run the background job worker in this process (set false for a web-only process).
   // The PostgreSQL schema of the job queue. Servers that share a database share the queue only if this matches.
   JOBS_SCHEMA: z.string().regex(/^[a-z_][a-z0-9_]{0,62}$/, "a lower-case PostgreSQL identifier").default("pgboss"),
+  // Run the background job worker in this process (set false for a web-only process).
   JOBS_WORKER: z
     .enum(["true", "false"])
     .default("true")

@@ -5,6 +5,7 @@ import { isDatabaseUnavailable } from "../../db/connection";
 import { userContext } from "../accounts/context";
 import { loadCurrentUser } from "../accounts/auth.server";
 import { env } from "./env.server";
+import { FORM_TYPES } from "./body.server";
 import { drainBody } from "./multipart.server";
 import { applySecurityHeaders } from "./security.server";
 
@@ -19,9 +20,6 @@ function refuse(request: Request, status: number, message: string, headers: Head
 
 /** How much of a refused body is read and dropped before answering. */
 const DRAIN_LIMIT_BYTES = 16 * 1024 * 1024;
-
-/** Bodies a page action can read; anything else would fail inside `request.formData()`. */
-const FORM_TYPES = /^(application\/x-www-form-urlencoded|multipart\/form-data)\b/i;
 
 export const requestGuard: MiddlewareFunction<Response> = async ({ request }, next) => {
   if (!SAFE_METHODS.has(request.method)) {

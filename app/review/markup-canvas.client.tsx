@@ -290,8 +290,9 @@ export default function MarkupCanvas(props: CanvasProps) {
                     // For the benchmark: when the layer first drew, and how long drawing it took.
                     if (!drawn.current && wrapper.current) {
                       drawn.current = true;
-                      wrapper.current.dataset.drawnAt = String(performance.now());
-                      wrapper.current.dataset.drawMs = (performance.now() - t0).toFixed(1);
+                      const t1 = performance.now();
+                      wrapper.current.dataset.drawnAt = String(t1);
+                      wrapper.current.dataset.drawMs = (t1 - t0).toFixed(1);
                     }
                   }} />
                 </Layer>

@@ -421,8 +421,11 @@ describe("conversation and notifications", () => {
     const run = process.env.COUNTERSIGN_RUN ?? "test";
     const pidFile = new URL(`../../.run/${run}/mail.pid`, import.meta.url);
     const r = await create();
-    process.kill(Number(readFileSync(pidFile, "utf8")));
-    await until(async () => fetch(`${process.env.MAIL_API_URL}/api/healthz`).then(() => false, () => true), 5000, "mail fake to stop");
+    const mailPid = Number(readFileSync(pidFile, "utf8"));
+    process.kill(mailPid);
+    // Gone, not merely deaf: a new fake cannot take the ports while the old process still holds one of them.
+    const gone = () => { try { process.kill(mailPid, 0); return false; } catch { return true; } };
+    await until(async () => gone(), 10_000, "mail fake to stop");
     try {
       await moveOk("site_plumber", r.id, "submit");
       const job = await until(async () => {
