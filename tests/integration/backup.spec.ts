@@ -134,7 +134,7 @@ describe("npm run backup, then npm run restore into another database and bucket"
     expect(Object.keys(after.tables)).toEqual(Object.keys(before.tables));
     for (const [name, t] of Object.entries(before.tables)) expect(after.tables[name], name).toEqual(t);
     expect(after.objects).toEqual(before.objects);
-  });
+  }, 150_000); // two child processes, each a full tsx start-up, on a machine that may be busy
 
   it("refuses to restore over a database that is not empty unless told to with --force", async () => {
     const into = { DATABASE_URL: targetUrl, S3_BUCKET: target.bucket };
@@ -146,5 +146,5 @@ describe("npm run backup, then npm run restore into another database and bucket"
     const forced = await command(["restore", folder, "--force"], into);
     expect(forced.stdout).toContain("all SHA-256 checked");
     expect(await withDb(targetUrl, async (db) => (await db.query(`SELECT count(*)::int AS n FROM sessions`)).rows[0].n)).toBeGreaterThan(0);
-  });
+  }, 150_000);
 });
