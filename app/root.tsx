@@ -11,6 +11,7 @@ import stylesheet from "./app.css?url";
 import { loadUser, requestGuard } from "./platform/middleware.server";
 import { useNonce } from "./platform/nonce";
 import { ErrorPage } from "./ui/error-page";
+import { useShipsScripts } from "./ui/plain-page";
 import { Shell } from "./ui/shell";
 
 export const middleware: Route.MiddlewareFunction[] = [requestGuard, loadUser];
@@ -27,6 +28,7 @@ export async function loader({ context }: Route.LoaderArgs) {
 
 export function Layout({ children }: { children: React.ReactNode }) {
   const nonce = useNonce();
+  const scripts = useShipsScripts();
   return (
     <html lang="en-ZA">
       <head>
@@ -37,8 +39,12 @@ export function Layout({ children }: { children: React.ReactNode }) {
       </head>
       <body className="font-sans">
         {children}
-        <ScrollRestoration nonce={nonce} />
-        <Scripts nonce={nonce} />
+        {scripts ? (
+          <>
+            <ScrollRestoration nonce={nonce} />
+            <Scripts nonce={nonce} />
+          </>
+        ) : null}
       </body>
     </html>
   );

@@ -1,11 +1,13 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
+import type { z } from "zod";
 import { data, Form, Link, redirect } from "react-router";
 import type { Route } from "./+types/reset-password.$token";
 import { resetPassword, resetTokenState, type ResetTokenState } from "~/accounts/reset.server";
 import { resetSchema } from "~/accounts/schemas";
 import { Button } from "~/ui/button";
 import { FormErrors, TextField } from "~/ui/form";
+import { PLAIN_PAGE } from "~/ui/plain-page";
 import { Panel } from "~/ui/shell";
 
 const PROBLEMS: Record<Exclude<ResetTokenState, "valid">, string> = {
@@ -27,10 +29,7 @@ export async function action({ request, params }: Route.ActionArgs) {
 }
 
 export default function ResetPassword({ loaderData, actionData }: Route.ComponentProps) {
-  const [form, fields] = useForm({
-    lastResult: actionData,
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: resetSchema }),
-  });
+  const [form, fields] = useForm<z.input<typeof resetSchema>>({ lastResult: actionData });
   return (
     <div className="mx-auto max-w-md">
       <h1 className="mb-6 text-3xl font-bold tracking-tight">Choose a new password</h1>
@@ -54,3 +53,5 @@ export default function ResetPassword({ loaderData, actionData }: Route.Componen
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "New password · Countersign" }];
+
+export const handle = PLAIN_PAGE;

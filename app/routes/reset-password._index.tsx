@@ -1,11 +1,13 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, useNavigation } from "react-router";
+import type { z } from "zod";
+import { data, Form, Link } from "react-router";
 import type { Route } from "./+types/reset-password._index";
 import { requestPasswordReset } from "~/accounts/reset.server";
 import { resetRequestSchema } from "~/accounts/schemas";
 import { Button } from "~/ui/button";
 import { FormErrors, TextField } from "~/ui/form";
+import { PLAIN_PAGE } from "~/ui/plain-page";
 import { Panel } from "~/ui/shell";
 
 export async function action({ request }: Route.ActionArgs) {
@@ -24,10 +26,8 @@ export async function action({ request }: Route.ActionArgs) {
 }
 
 export default function ResetRequest({ actionData }: Route.ComponentProps) {
-  const navigation = useNavigation();
-  const [form, fields] = useForm({
+  const [form, fields] = useForm<z.input<typeof resetRequestSchema>>({
     lastResult: actionData?.result,
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: resetRequestSchema }),
   });
   return (
     <div className="mx-auto max-w-md">
@@ -42,7 +42,7 @@ export default function ResetRequest({ actionData }: Route.ComponentProps) {
         <Form method="post" {...getFormProps(form)} className="space-y-4">
           <FormErrors errors={form.errors} id={form.errorId} />
           <TextField meta={fields.email} label="E-mail address" type="email" autoComplete="email" />
-          <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>Send reset link</Button>
+          <Button type="submit" className="w-full">Send reset link</Button>
         </Form>
       </Panel>
       <p className="mt-6 text-sm"><Link className="font-semibold text-copper-deep underline underline-offset-4" to="/sign-in">Back to sign in</Link></p>
@@ -51,3 +51,5 @@ export default function ResetRequest({ actionData }: Route.ComponentProps) {
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Reset password · Countersign" }];
+
+export const handle = PLAIN_PAGE;

@@ -1,6 +1,7 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useNavigation, useSearchParams } from "react-router";
+import type { z } from "zod";
+import { data, Form, Link, redirect, useSearchParams } from "react-router";
 import type { Route } from "./+types/sign-in";
 import { authenticator, optionalUser, SignInError } from "~/accounts/auth.server";
 import { signInSchema } from "~/accounts/schemas";
@@ -8,6 +9,7 @@ import { startSession } from "~/accounts/session.server";
 import { safeRedirect } from "~/platform/http.server";
 import { Button } from "~/ui/button";
 import { FormErrors, TextField } from "~/ui/form";
+import { PLAIN_PAGE } from "~/ui/plain-page";
 import { Panel } from "~/ui/shell";
 
 export async function loader({ context, request }: Route.LoaderArgs) {
@@ -32,13 +34,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignIn({ actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
-  const navigation = useNavigation();
-  const [form, fields] = useForm({
-    lastResult: actionData,
-    shouldValidate: "onBlur",
-    shouldRevalidate: "onInput",
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: signInSchema }),
-  });
+  const [form, fields] = useForm<z.input<typeof signInSchema>>({ lastResult: actionData });
   const notice = params.get("notice");
   return (
     <div className="mx-auto max-w-md">
@@ -55,9 +51,7 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
           <input type="hidden" name="redirectTo" value={params.get("redirectTo") ?? ""} />
           <TextField meta={fields.email} label="E-mail address" type="email" autoComplete="email" />
           <TextField meta={fields.password} label="Password" type="password" autoComplete="current-password" />
-          <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
-            {navigation.state === "submitting" ? "Signing in…" : "Sign in"}
-          </Button>
+          <Button type="submit" className="w-full">Sign in</Button>
         </Form>
       </Panel>
       <p className="mt-6 flex flex-wrap justify-between gap-2 text-sm">
@@ -71,3 +65,5 @@ export default function SignIn({ actionData }: Route.ComponentProps) {
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Sign in · Countersign" }];
+
+export const handle = PLAIN_PAGE;

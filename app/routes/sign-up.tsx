@@ -1,6 +1,7 @@
 import { getFormProps, useForm } from "@conform-to/react";
 import { parseWithZod } from "@conform-to/zod/v4";
-import { data, Form, Link, redirect, useNavigation, useSearchParams } from "react-router";
+import type { z } from "zod";
+import { data, Form, Link, redirect, useSearchParams } from "react-router";
 import type { Route } from "./+types/sign-up";
 import { DuplicateEmailError, signUp } from "~/accounts/accounts.server";
 import { optionalUser } from "~/accounts/auth.server";
@@ -9,6 +10,7 @@ import { startSession } from "~/accounts/session.server";
 import { safeRedirect } from "~/platform/http.server";
 import { Button } from "~/ui/button";
 import { FormErrors, SelectField, TextField } from "~/ui/form";
+import { PLAIN_PAGE } from "~/ui/plain-page";
 import { Panel } from "~/ui/shell";
 
 export async function loader({ context }: Route.LoaderArgs) {
@@ -32,13 +34,7 @@ export async function action({ request }: Route.ActionArgs) {
 
 export default function SignUp({ actionData }: Route.ComponentProps) {
   const [params] = useSearchParams();
-  const navigation = useNavigation();
-  const [form, fields] = useForm({
-    lastResult: actionData,
-    shouldValidate: "onBlur",
-    shouldRevalidate: "onInput",
-    onValidate: ({ formData }) => parseWithZod(formData, { schema: signUpSchema }),
-  });
+  const [form, fields] = useForm<z.input<typeof signUpSchema>>({ lastResult: actionData });
   const isEngineer = fields.profession.value === "engineer";
   return (
     <div className="mx-auto max-w-lg">
@@ -58,9 +54,7 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
             <TextField meta={fields.registrationNumber} label="Registration number" hint="It stays unverified until a project manager checks it; only verified engineers can sign approvals." />
             <TextField meta={fields.registrationBody} label="Registering body" />
           </fieldset>
-          <Button type="submit" className="w-full" disabled={navigation.state === "submitting"}>
-            {navigation.state === "submitting" ? "Creating account…" : "Create account"}
-          </Button>
+          <Button type="submit" className="w-full">Create account</Button>
         </Form>
       </Panel>
       <p className="mt-6 text-sm">
@@ -72,3 +66,5 @@ export default function SignUp({ actionData }: Route.ComponentProps) {
 }
 
 export const meta: Route.MetaFunction = () => [{ title: "Create account · Countersign" }];
+
+export const handle = PLAIN_PAGE;

@@ -7,7 +7,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { markdown, machine, rows } from "../perf/report";
-import { ROUTES, routeJs } from "../perf/routes-js";
+import { documentScripts, ROUTES, routeJs, SERVED_PATHS } from "../perf/routes-js";
 
 const dir = mkdtempSync(path.join(tmpdir(), "cs-bench-report-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -43,5 +43,20 @@ describe("npm run bench, at toy size", () => {
       expect(r.initialKb).toBeGreaterThan(10);
       expect(r.initialFiles).toBeGreaterThan(3);
     }
+  });
+
+  it("counts a page from the scripts its served document names: none on the plain sign-in pages, the whole entry elsewhere", async () => {
+    const build = process.env.COUNTERSIGN_BUILD_DIR ?? "build";
+    const served = async (at: string) => (await fetch(new URL(at, process.env.APP_URL))).text();
+    for (const at of [SERVED_PATHS["sign-in"]!, "/sign-up", "/reset-password"]) {
+      const html = await served(at);
+      expect(html, at).toContain("<form");
+      expect(html, at).not.toMatch(/<script/);
+      expect(routeJs(build, ROUTES["sign-in"], documentScripts(html)).initialKb, at).toBe(0);
+    }
+    // The landing page hydrates as before: its document names the entry and the route modules that the manifest lists.
+    const landing = documentScripts(await served("/"));
+    expect(landing.some((u) => /entry\.client/.test(u))).toBe(true);
+    expect(routeJs(build, "routes/_index", landing).initialKb).toBeGreaterThan(50);
   });
 });

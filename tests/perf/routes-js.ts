@@ -3,7 +3,8 @@
 // imports, then for the route and each parent its module and imports, each file once, each gzipped at level 9 as
 // a server would. Chunks a route may load later by dynamic import (pdf.js, the markup canvas) are summed apart,
 // followed through every chunk they import in turn; the pdf.js worker is left out (a separate thread, cached
-// once per visit, not part of the page's own script).
+// once per visit, not part of the page's own script). A page that asks for no script (app/ui/plain-page.ts) is
+// counted from the document the app serves instead, when APP_URL answers: the scripts that document names.
 //   npx tsx tests/perf/routes-js.ts [build dir]   (COUNTERSIGN_BUILD_DIR or build by default)
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
@@ -14,6 +15,20 @@ export const ROUTES = {
   "sign-in": "routes/sign-in",
   review: "routes/projects.$projectId.requests.$requestId.review",
 } as const;
+
+/** Pages counted from what the running app serves to a visitor who is not signed in. */
+export const SERVED_PATHS: Partial<Record<keyof typeof ROUTES, string>> = { "sign-in": "/sign-in" };
+
+/** The script URLs a served document names: module preloads, script sources and the inline entry's imports. */
+export function documentScripts(html: string): string[] {
+  const urls = new Set<string>();
+  for (const m of html.matchAll(/<link\b[^>]*rel="modulepreload"[^>]*href="([^"]+)"/g)) urls.add(m[1]!);
+  for (const m of html.matchAll(/<script\b[^>]*src="([^"]+)"/g)) urls.add(m[1]!);
+  for (const m of html.matchAll(/<script\b[^>]*>([\s\S]*?)<\/script>/g)) {
+    for (const i of m[1]!.matchAll(/(?:import\(?|from)\s*["']([^"']+\.m?js)["']/g)) urls.add(i[1]!);
+  }
+  return [...urls].map((u) => u.replace(/^\//, ""));
+}
 
 interface ManifestRoute {
   id: string;
@@ -36,7 +51,11 @@ export function readManifest(buildDir: string): Manifest {
 
 const isWorker = (url: string) => /pdf\.worker/.test(url);
 
-export function routeJs(buildDir: string, routeId: string) {
+/**
+ * The first-load and may-load-later gzip KB of a route: from the manifest (entry, the route and its parents), or,
+ * given `served`, from the script URLs the served document names (documentScripts).
+ */
+export function routeJs(buildDir: string, routeId: string, served?: string[]) {
   const manifest = readManifest(buildDir);
   const client = path.join(buildDir, "client");
   const gz = new Map<string, number>();
@@ -44,12 +63,13 @@ export function routeJs(buildDir: string, routeId: string) {
     if (!gz.has(url)) gz.set(url, gzipSync(readFileSync(path.join(client, url)), { level: 9 }).length);
     return gz.get(url)!;
   };
-  const initial = new Set<string>([manifest.entry.module, ...manifest.entry.imports]);
-  for (let id: string | undefined = routeId; id; id = manifest.routes[id]?.parentId) {
+  const initial = new Set<string>(served ?? [manifest.entry.module, ...manifest.entry.imports]);
+  for (let id: string | undefined = served ? undefined : routeId; id; id = manifest.routes[id]?.parentId) {
     const route = manifest.routes[id];
     if (!route) throw new Error(`route ${id} is not in the manifest`);
     for (const url of [route.module, ...(route.imports ?? [])]) initial.add(url);
   }
+  if (served && !manifest.routes[routeId]) throw new Error(`route ${routeId} is not in the manifest`);
   // Dynamic imports, and what those chunks import, statically or not: relative specifiers in the chunk text.
   const lazy = new Set<string>();
   const queue = [...initial];
@@ -76,9 +96,11 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const buildDir = process.argv[2] ?? process.env.COUNTERSIGN_BUILD_DIR ?? "build";
   const figures: Record<string, number[]> = {};
   const notes: Record<string, unknown> = { buildDir };
-  for (const [name, id] of Object.entries(ROUTES)) {
-    const r = routeJs(buildDir, id);
-    console.log(`${name.padEnd(8)} first load ${r.initialKb} KB gzip (${r.initialFiles} files); may load later ${r.lazyKb} KB (${r.lazyFiles} files), pdf.js worker excluded`);
+  for (const [name, id] of Object.entries(ROUTES) as [keyof typeof ROUTES, string][]) {
+    const at = SERVED_PATHS[name];
+    const html = at && process.env.APP_URL ? await fetch(new URL(at, process.env.APP_URL)).then((res) => res.text()) : null;
+    const r = { ...routeJs(buildDir, id, html === null ? undefined : documentScripts(html)), countedFrom: html === null ? "manifest" : `served ${at}` };
+    console.log(`${name.padEnd(8)} first load ${r.initialKb} KB gzip (${r.initialFiles} files, from the ${r.countedFrom}); may load later ${r.lazyKb} KB (${r.lazyFiles} files), pdf.js worker excluded`);
     figures[`${name}.initial_kb`] = [r.initialKb];
     figures[`${name}.lazy_kb`] = [r.lazyKb];
     notes[name] = r;
