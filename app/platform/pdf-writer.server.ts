@@ -7,18 +7,33 @@ export const INK = rgb(0.114, 0.102, 0.086);
 export const SOFT = rgb(0.353, 0.322, 0.282);
 export const COPPER = rgb(0.604, 0.29, 0.125);
 
+/**
+ * Greedy wrapping: each line takes as many words as fit in `width`, and a word too long for any line stands
+ * alone. Laying out text with our font is the costly part of writing a PDF, so rather than measuring the line
+ * again after every word, a paragraph that fits is measured once and a longer one is cut by halving. That gives
+ * the same lines as adding word by word because a line only grows wider as words join it.
+ */
 export function wrap(text: string, font: PDFFont, size: number, width: number): string[] {
   const out: string[] = [];
+  const fits = (words: string[]) => font.widthOfTextAtSize(words.join(" "), size) <= width;
   for (const paragraph of text.split("\n")) {
-    let line = "";
-    for (const word of paragraph.split(/\s+/).filter(Boolean)) {
-      const next = line ? `${line} ${word}` : word;
-      if (font.widthOfTextAtSize(next, size) > width && line) {
-        out.push(line);
-        line = word;
-      } else line = next;
+    let words = paragraph.split(/\s+/).filter(Boolean);
+    if (!words.length) out.push("");
+    while (words.length) {
+      let take = words.length;
+      if (!fits(words)) {
+        // words[0..low) fits (one word always goes), words[0..high) does not.
+        let [low, high] = [1, words.length];
+        while (high - low > 1) {
+          const mid = (low + high) >> 1;
+          if (fits(words.slice(0, mid))) low = mid;
+          else high = mid;
+        }
+        take = low;
+      }
+      out.push(words.slice(0, take).join(" "));
+      words = words.slice(take);
     }
-    out.push(line);
   }
   return out;
 }
