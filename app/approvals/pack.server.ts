@@ -1,7 +1,7 @@
 // The approval pack: each affected sheet with the engineer's markups drawn in as vector graphics and an approval
 // stamp (decision, number and version, engineer and registration, date, short hash, QR to the verification
 // page), then a record page. Returns the unsaved document: signing adds its placeholder and is the last write.
-import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import { PDFArray, PDFDocument, PDFPage, PDFRef, rgb, type PDFEmbeddedPage, type PDFFont } from "pdf-lib";
 import QRCode from "qrcode";
 import { embedFonts, printable, type PdfFonts } from "../platform/pdf-fonts.server";
 import { a4Writer, COPPER, INK, SOFT, wrap } from "../platform/pdf-writer.server";
@@ -61,35 +61,61 @@ function drawMarkup(page: PDFPage, m: MarkupShape, fonts: PdfFonts) {
   }
 }
 
-async function drawQr(page: PDFPage, url: string, x: number, y: number, size: number) {
+function drawQr(page: PDFPage, url: string, x: number, y: number, size: number) {
   const qr = QRCode.create(url, { errorCorrectionLevel: "M" });
   const n = qr.modules.size;
   const cell = size / n;
   page.drawRectangle({ x: x - cell, y: y - cell, width: size + 2 * cell, height: size + 2 * cell, color: rgb(1, 1, 1) });
+  // Every dark module as one square of a single path: one fill instead of a drawing operation per module.
+  let path = "";
   for (let r = 0; r < n; r++) {
-    for (let c = 0; c < n; c++) {
-      if (qr.modules.get(r, c)) page.drawRectangle({ x: x + c * cell, y: y + size - (r + 1) * cell, width: cell, height: cell, color: INK });
-    }
+    for (let c = 0; c < n; c++) if (qr.modules.get(r, c)) path += `M${c * cell} ${r * cell}h${cell}v${cell}h${-cell}Z`;
   }
+  page.drawSvgPath(path, { x, y: y + size, color: INK, borderWidth: 0 });
 }
 
-async function drawStamp(page: PDFPage, input: PackInput, sheet: PackSheet, fonts: PdfFonts) {
-  const w = 300;
-  const h = 112;
-  const x = page.getWidth() - w - 18;
-  const y = 18;
-  page.drawRectangle({ x, y, width: w, height: h, color: PAPER, borderColor: COPPER, borderWidth: 2, opacity: 0.96 });
-  const text = (s: string, dx: number, dy: number, size: number, font: PDFFont, color = INK) =>
-    page.drawText(printable(s), { x: x + dx, y: y + h - dy, size, font, color, maxWidth: w - 100 });
-  text("COUNTERSIGN · RATIONAL DESIGN", 10, 16, 7.5, fonts.bold, COPPER);
-  text(input.approval.decision.toUpperCase(), 10, 32, 12, fonts.bold);
-  text(`${input.approval.reference} · approval v${input.approval.version}`, 10, 46, 9, fonts.semibold);
-  text(`${input.engineer.name}`, 10, 60, 8.5, fonts.regular);
-  text(`Reg. ${input.engineer.registrationNumber} (${input.engineer.registrationBody})`, 10, 71, 7.5, fonts.regular, SOFT);
-  text(`Signed ${input.approval.signedAt.toISOString().slice(0, 10)} · sheet ${sheet.sheetNumber} rev ${sheet.revisionLabel}`, 10, 83, 7.5, fonts.regular, SOFT);
-  text(`Record ${input.approval.snapshotSha256.slice(0, 12)} · verify by scanning`, 10, 95, 7.5, fonts.regular, SOFT);
-  text("Digitally signed; a printed copy is only a copy.", 10, 106, 6.5, fonts.regular, SOFT);
-  await drawQr(page, input.approval.verifyUrl, x + w - 88, y + 14, 78);
+const STAMP = { width: 300, height: 112, margin: 18 };
+
+/**
+ * The part of the stamp that is the same on every sheet (box, decision, engineer, record hash, QR), drawn once
+ * as a form XObject that each sheet's page places: a pack of fifty sheets lays out, subsets and stores it once
+ * instead of fifty times. The form is drawn on a page that never joins the page tree and is removed once the
+ * form holds its content and resources.
+ */
+async function stampForm(doc: PDFDocument, input: PackInput, fonts: PdfFonts) {
+  const { width: w, height: h, margin } = STAMP;
+  const canvas = PDFPage.create(doc);
+  canvas.setSize(w, h);
+  canvas.drawRectangle({ x: 0, y: 0, width: w, height: h, color: PAPER, borderColor: COPPER, borderWidth: 2, opacity: 0.96 });
+  const text = stampText(canvas, 0, 0);
+  text("COUNTERSIGN · RATIONAL DESIGN", 16, 7.5, fonts.bold, COPPER);
+  text(input.approval.decision.toUpperCase(), 32, 12, fonts.bold);
+  text(`${input.approval.reference} · approval v${input.approval.version}`, 46, 9, fonts.semibold);
+  text(`${input.engineer.name}`, 60, 8.5, fonts.regular);
+  text(`Reg. ${input.engineer.registrationNumber} (${input.engineer.registrationBody})`, 71, 7.5, fonts.regular, SOFT);
+  text(`Record ${input.approval.snapshotSha256.slice(0, 12)} · verify by scanning`, 95, 7.5, fonts.regular, SOFT);
+  text("Digitally signed; a printed copy is only a copy.", 106, 6.5, fonts.regular, SOFT);
+  drawQr(canvas, input.approval.verifyUrl, w - 88, 14, 78);
+  // The margin keeps the box's border and any wrapped line inside the form's clip, as when drawn on the sheet.
+  const form = await doc.embedPage(canvas, { left: -margin, bottom: -margin, right: w + margin, top: h + margin });
+  await form.embed();
+  const contents = canvas.node.Contents();
+  for (const ref of [...(contents instanceof PDFArray ? contents.asArray() : []), canvas.ref]) if (ref instanceof PDFRef) doc.context.delete(ref);
+  return form;
+}
+
+/** A stamp line; one too long for the space left of the QR continues on the lines below. */
+function stampText(page: PDFPage, x: number, y: number) {
+  return (s: string, dy: number, size: number, font: PDFFont, color = INK) =>
+    page.drawText(wrap(printable(s), font, size, STAMP.width - 100).join("\n"), { x: x + 10, y: y + STAMP.height - dy, size, font, color });
+}
+
+/** Places the shared stamp at the sheet's bottom right and adds the one line that names the sheet. */
+function drawStamp(page: PDFPage, form: PDFEmbeddedPage, input: PackInput, sheet: PackSheet, fonts: PdfFonts) {
+  const x = page.getWidth() - STAMP.width - STAMP.margin;
+  const y = STAMP.margin;
+  page.drawPage(form, { x: x - STAMP.margin, y: y - STAMP.margin });
+  stampText(page, x, y)(`Signed ${input.approval.signedAt.toISOString().slice(0, 10)} · sheet ${sheet.sheetNumber} rev ${sheet.revisionLabel}`, 83, 7.5, fonts.regular, SOFT);
 }
 
 function recordPages(doc: PDFDocument, input: PackInput, fonts: PdfFonts) {
@@ -139,6 +165,7 @@ export async function buildApprovalPack(input: PackInput): Promise<PDFDocument> 
   doc.setCreationDate(input.approval.signedAt);
   doc.setModificationDate(input.approval.signedAt);
   const fonts = await embedFonts(doc);
+  let stamp: PDFEmbeddedPage | undefined;
   for (const sheet of input.sheets) {
     const source = await PDFDocument.load(sheet.pdf, { updateMetadata: false });
     const wanted = (sheet.pages?.length ? sheet.pages : source.getPageIndices().map((i) => i + 1)).map((p) => p - 1);
@@ -147,7 +174,8 @@ export async function buildApprovalPack(input: PackInput): Promise<PDFDocument> 
       doc.addPage(page);
       const pageNo = wanted[i]! + 1;
       for (const m of sheet.markups.filter((x) => x.page === pageNo)) drawMarkup(page, m, fonts);
-      await drawStamp(page, input, sheet, fonts);
+      stamp ??= await stampForm(doc, input, fonts);
+      drawStamp(page, stamp, input, sheet, fonts);
     }
   }
   recordPages(doc, input, fonts);

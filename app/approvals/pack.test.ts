@@ -3,7 +3,7 @@ import { execFileSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { PDFDocument } from "pdf-lib";
+import { PDFDict, PDFDocument, PDFName } from "pdf-lib";
 import { describe, expect, it } from "vitest";
 import { issueSigningIdentity } from "./identity.server";
 import { buildApprovalPack, type PackInput } from "./pack.server";
@@ -52,5 +52,44 @@ describe("approval pack", () => {
     expect(text).toContain("at most 9 m");
     expect(text).toContain("a".repeat(64));
     expect(execFileSync("pdfsig", [file], { encoding: "utf8" })).toContain("Signature is Valid.");
+  });
+
+  it("places one shared stamp on every sheet page, each with its own sheet line, and keeps no stray pages", async () => {
+    const base = await input();
+    const twoPages = await PDFDocument.create();
+    twoPages.addPage([842, 595]);
+    twoPages.addPage([1191, 842]);
+    const sheets = [
+      { ...base.sheets[0]!, sheetNumber: "P-101", revisionLabel: "B" },
+      { ...base.sheets[0]!, sheetNumber: "P-102", revisionLabel: "C", pdf: await twoPages.save(), markups: [] },
+      { ...base.sheets[0]!, sheetNumber: "P-103", revisionLabel: "A", pdf: await twoPages.save(), pages: [2], markups: [] },
+    ];
+    const doc = await buildApprovalPack({ ...base, sheets });
+    const identity = issueSigningIdentity({ name: "Test Engineer", email: "e@test.example", registrationNumber: "TEST-1" });
+    const bytes = await signPdf(doc, identity, { reason: "DR-007 v2", name: "Test Engineer", location: "Countersign", contactInfo: "e@test.example" });
+    expect(verifyPdfSignature(bytes)).toMatchObject({ intact: true, coversWholeDocument: true });
+
+    const file = path.join(mkdtempSync(path.join(tmpdir(), "pack-")), "pack.pdf");
+    writeFileSync(file, bytes);
+    expect(execFileSync("pdfinfo", [file], { encoding: "utf8" })).toMatch(/Pages:\s+5\n/);
+    execFileSync("qpdf", ["--check", file]); // throws on a broken cross-reference or stream
+    const sheetLines = ["sheet P-101 rev B", "sheet P-102 rev C", "sheet P-102 rev C", "sheet P-103 rev A"];
+    for (const [i, line] of sheetLines.entries()) {
+      const text = execFileSync("pdftotext", ["-f", String(i + 1), "-l", String(i + 1), "-layout", file, "-"], { encoding: "utf8" });
+      expect(text).toContain("APPROVED WITH CONDITIONS");
+      expect(text).toContain("Test Engineer");
+      expect(text).toContain(`Signed 2026-12-01 · ${line}`);
+      expect(text.match(/sheet P-10\d rev/g)).toHaveLength(1);
+    }
+
+    // The stamp is one form, stored once, that every sheet page draws; the page it was drawn on is gone.
+    const saved = await PDFDocument.load(bytes);
+    const forms = saved.getPages().slice(0, 4).map((page) => {
+      const xObjects = page.node.Resources()!.lookup(PDFName.of("XObject"), PDFDict);
+      return xObjects.values().map((v) => v.toString());
+    });
+    expect(forms.every((f) => f.length === 1 && f[0] === forms[0]![0])).toBe(true);
+    const pageObjects = saved.context.enumerateIndirectObjects().filter(([, o]) => o instanceof PDFDict && o.get(PDFName.of("Type"))?.toString() === "/Page");
+    expect(pageObjects).toHaveLength(5);
   });
 });
