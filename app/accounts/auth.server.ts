@@ -8,7 +8,7 @@ import { SignInAttempt, User } from "../../db/models";
 import { apiError, clientIp } from "../platform/http.server";
 import { userContext, type CurrentUser } from "./context";
 import { burnPasswordCheck, verifyPassword } from "./password.server";
-import { getSession } from "./session.server";
+
 
 /** Failed attempts allowed per e-mail address (and, more loosely, per client address) in the window. */
 export const SIGN_IN_LIMIT = { perEmail: 5, perIp: 30, windowMinutes: 15 } as const;
@@ -54,16 +54,6 @@ authenticator.use(
 );
 
 /** Reads the session and loads the user: run once per request by the root middleware. */
-export async function loadCurrentUser(request: Request): Promise<CurrentUser | null> {
-  const session = await getSession(request);
-  const userId = session.get("userId");
-  if (!userId) return null;
-  const user = await User.findByPk(userId, {
-    attributes: ["id", "email", "name", "profession", "registrationState"],
-  });
-  return user ? (user.get({ plain: true }) as CurrentUser) : null;
-}
-
 export function optionalUser(context: Readonly<RouterContextProvider>) {
   return context.get(userContext);
 }

@@ -2,11 +2,12 @@
 // PostgreSQL, keyed by the id's hash, so any app server can read it and a session can be revoked.
 import { randomBytes } from "node:crypto";
 import { createCookie, createSessionStorage, redirect } from "react-router";
-import { Op } from "sequelize";
-import { Session } from "../../db/models";
+import { Op, QueryTypes } from "sequelize";
+import { Session, sequelize } from "../../db/models";
 import { env } from "../platform/env.server";
 import { clientIp } from "../platform/http.server";
 import { hashToken } from "../platform/tokens.server";
+import type { CurrentUser } from "./context";
 
 const MAX_AGE_S = 60 * 60 * 24 * 14;
 
@@ -59,6 +60,23 @@ const storage = createSessionStorage<SessionData>({
 
 export function getSession(request: Request) {
   return storage.getSession(request.headers.get("Cookie"));
+}
+
+/**
+ * The signed-in user behind the request's cookie, session and user read in one query: the middleware asks on
+ * every request. Null without a cookie, with a bad signature, or when the session expired, was revoked or names
+ * no user.
+ */
+export async function sessionUser(request: Request): Promise<CurrentUser | null> {
+  const id: unknown = await sessionCookie.parse(request.headers.get("Cookie"));
+  if (typeof id !== "string" || !id) return null;
+  const [user] = await sequelize.query<CurrentUser>(
+    `SELECT u.id, u.email, u.name, u.profession, u.registration_state AS "registrationState"
+     FROM sessions s JOIN users u ON u.id = s.user_id
+     WHERE s.id_hash = :idHash AND s.expires_at > now()`,
+    { replacements: { idHash: hashToken(id) }, type: QueryTypes.SELECT },
+  );
+  return user ?? null;
 }
 
 /** Starts a fresh session for the user (a new id, so a planted session cannot be taken over). */

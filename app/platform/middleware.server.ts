@@ -3,7 +3,7 @@
 import { data, type MiddlewareFunction } from "react-router";
 import { isDatabaseUnavailable } from "../../db/connection";
 import { userContext } from "../accounts/context";
-import { loadCurrentUser } from "../accounts/auth.server";
+import { sessionUser } from "../accounts/session.server";
 import { env } from "./env.server";
 import { FORM_TYPES } from "./body.server";
 import { drainBody } from "./multipart.server";
@@ -50,7 +50,7 @@ export const requestGuard: MiddlewareFunction<Response> = async ({ request }, ne
 
 export const loadUser: MiddlewareFunction<Response> = async ({ request, context }, next) => {
   try {
-    context.set(userContext, await loadCurrentUser(request));
+    context.set(userContext, await sessionUser(request));
   } catch (error) {
     if (isDatabaseUnavailable(error)) {
       console.error("database unavailable:", (error as Error).message);

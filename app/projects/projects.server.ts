@@ -56,14 +56,15 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /** The project and the user's role on it, or null when the user is not a member (or the id is malformed). */
 export async function findProjectAccess(projectId: string, userId: string): Promise<ProjectAccess | null> {
   if (!UUID.test(projectId)) return null;
-  const member = await ProjectMember.findOne({
+  // A plain row (asked on every project request): no model instances to build.
+  const member = (await ProjectMember.findOne({
     where: { projectId, userId },
     attributes: ["role"],
     include: [{ model: Project, as: "project", attributes: [...PROJECT_FIELDS] }],
-  });
-  if (!member) return null;
-  const project = (member as unknown as { project: Project }).project.get({ plain: true });
-  return { project, role: member.role as Role };
+    raw: true,
+    nest: true,
+  })) as unknown as { role: Role; project: ProjectAccess["project"] } | null;
+  return member ? { project: member.project, role: member.role } : null;
 }
 
 /** Middleware for every /projects/:projectId route: members only; sets the project context once. */

@@ -103,6 +103,19 @@ describe("sign-in and sessions", () => {
     expect(res.status).toBe(401);
   });
 
+  it("treats an expired session, or a cookie with a forged signature, as signed out", async () => {
+    const user = await makeUser();
+    const c = new Client();
+    await c.signIn(user.email, PASSWORD);
+    const cookie = c.cookieHeader();
+    const me = async (header: string) => (await fetch(new URL("/api/me", c.base), { headers: { cookie: header } })).status;
+    expect(await me(cookie)).toBe(200);
+    // The same id with its signature changed.
+    expect(await me(cookie.replace(/\.([^.;]+)(;|$)/, (_m, sig: string, end: string) => `.${sig.slice(0, -2)}${sig.endsWith("AA") ? "BB" : "AA"}${end}`))).toBe(401);
+    await Session.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
+    expect(await me(cookie)).toBe(401);
+  });
+
   it("redirects to sign-in with a safe return path, and never off-site", async () => {
     const res = await new Client().get("/profile");
     expect(res.status).toBe(302);
