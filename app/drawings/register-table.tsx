@@ -15,11 +15,11 @@ import {
 import { Fragment, useMemo, useState } from "react";
 import { Link } from "react-router";
 import { formatDate } from "./format";
-import type { DrawingView } from "./register.server";
+import type { RegisterRow } from "./register.server";
 import { STATUS_LABELS, type RevisionStatus } from "./status";
 import { ProcessingBadge, StatusBadge } from "./status-badge";
 
-const searchFilter: FilterFn<DrawingView> = (row, _id, value: string) => {
+const searchFilter: FilterFn<RegisterRow> = (row, _id, value: string) => {
   const q = value.trim().toLowerCase();
   if (!q) return true;
   const d = row.original;
@@ -27,14 +27,14 @@ const searchFilter: FilterFn<DrawingView> = (row, _id, value: string) => {
   return [d.sheetNumber, d.title, d.discipline, status, d.current?.label ?? ""].some((s) => s.toLowerCase().includes(q));
 };
 
-export function RegisterTable({ drawings, projectId }: { drawings: DrawingView[]; projectId: string }) {
+export function RegisterTable({ drawings, projectId }: { drawings: RegisterRow[]; projectId: string }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "sheetNumber", desc: false }]);
   const [search, setSearch] = useState("");
   const [status, setStatus] = useState<"" | RevisionStatus>("");
   const [discipline, setDiscipline] = useState("");
   const disciplines = useMemo(() => [...new Set(drawings.map((d) => d.discipline))].sort(), [drawings]);
 
-  const columns = useMemo<ColumnDef<DrawingView>[]>(
+  const columns = useMemo<ColumnDef<RegisterRow>[]>(
     () => [
       {
         id: "sheetNumber",

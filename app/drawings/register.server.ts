@@ -44,6 +44,23 @@ export interface DrawingView {
   revisions: RevisionView[];
 }
 
+/** What the register page shows of a revision: no hashes, sizes or page sizes (the sheet page has those). */
+export type RegisterRevision = Pick<
+  RevisionView,
+  "id" | "label" | "status" | "description" | "processing" | "processedPages" | "pageCount" | "uploadedBy" | "uploadedAt" | "issuedBy" | "issuedAt"
+>;
+export type RegisterRow = Omit<DrawingView, "current" | "revisions"> & { current: RegisterRevision | null; revisions: RegisterRevision[] };
+
+function registerRevision(r: RevisionView): RegisterRevision {
+  const { id, label, status, description, processing, processedPages, pageCount, uploadedBy, uploadedAt, issuedBy, issuedAt } = r;
+  return { id, label, status, description, processing, processedPages, pageCount, uploadedBy, uploadedAt, issuedBy, issuedAt };
+}
+
+/** The register page's rows: a large register is sent to the browser (and into the document) a third the size. */
+export function toRegisterRows(drawings: DrawingView[]): RegisterRow[] {
+  return drawings.map((d) => ({ ...d, current: d.current && registerRevision(d.current), revisions: d.revisions.map(registerRevision) }));
+}
+
 /** A revision's fields, with the names of who uploaded and issued it when they were read. */
 type RevisionSource = Pick<DrawingRevision, (typeof REVISION_FIELDS)[number]> & { uploadedBy?: { name: string } | null; issuedBy?: { name: string } | null };
 

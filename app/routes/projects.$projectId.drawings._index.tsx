@@ -1,5 +1,5 @@
 import type { Route } from "./+types/projects.$projectId.drawings._index";
-import { listRegister } from "~/drawings/register.server";
+import { listRegister, toRegisterRows } from "~/drawings/register.server";
 import { RegisterTable } from "~/drawings/register-table";
 import { UploadPanel } from "~/drawings/upload-panel";
 import { usePollWhile } from "~/drawings/use-poll";
@@ -10,10 +10,9 @@ import { Panel } from "~/ui/shell";
 
 export async function loader({ context, request }: Route.LoaderArgs) {
   const { project, role } = requireProjectAction(context, request, "drawings.view");
-  const drawings = await listRegister(project.id);
   return {
     projectId: project.id,
-    drawings,
+    drawings: toRegisterRows(await listRegister(project.id)),
     canUpload: can(role, "drawings.upload"),
     isPlumber: role === "site_plumber",
     limits: { maxBytes: env.UPLOAD_MAX_BYTES, maxPages: env.UPLOAD_MAX_PAGES },
