@@ -68,7 +68,7 @@ serve_background() {
   mkdir -p ".run/$profile"
   local pidfile=".run/$profile/app.pid"
   if [ -f "$pidfile" ] && kill -0 "$(cat "$pidfile")" 2>/dev/null; then kill "$(cat "$pidfile")"; sleep 0.3; fi
-  HOST=127.0.0.1 PORT=$APP_PORT node node_modules/@react-router/serve/bin.js "$COUNTERSIGN_BUILD_DIR/server/index.js" \
+  HOST=127.0.0.1 PORT=$APP_PORT node storage/serve.mjs "$COUNTERSIGN_BUILD_DIR/server/index.js" \
     >".run/$profile/app.log" 2>&1 &
   echo $! >"$pidfile"
   for _ in $(seq 1 150); do

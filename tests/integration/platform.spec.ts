@@ -120,6 +120,62 @@ describe("database outage", () => {
   });
 });
 
+describe("the production server (storage/serve.mjs)", () => {
+  const launch = (port: number, concurrency: number) =>
+    spawn(process.execPath, ["storage/serve.mjs", `${process.env.COUNTERSIGN_BUILD_DIR ?? "build"}/server/index.js`], {
+      // As in production: without VITEST, the built app stops its job queue and leaves on SIGTERM.
+      env: { ...process.env, VITEST: undefined, PORT: String(port), HOST: "127.0.0.1", APP_URL: `http://127.0.0.1:${port}`, WEB_CONCURRENCY: String(concurrency) },
+      stdio: "ignore",
+    });
+  const exited = (child: ChildProcess) => new Promise<number | null>((r) => (child.exitCode !== null ? r(child.exitCode) : child.once("exit", (code) => r(code))));
+  const children = async (pid: number) => {
+    const { readFileSync } = await import("node:fs");
+    try {
+      return readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
+    } catch {
+      return [];
+    }
+  };
+  const alive = (pid: number) => { try { process.kill(pid, 0); return true; } catch { return false; } };
+
+  it("serves from one process per WEB_CONCURRENCY, sessions good in any of them, and stops them all on SIGTERM", async () => {
+    const port = 47000 + Math.floor(Math.random() * 1000);
+    const app = launch(port, 2);
+    try {
+      const base = `http://127.0.0.1:${port}`;
+      for (let i = 0; i < 150; i++) {
+        try { if ((await fetch(`${base}/healthz`)).ok) break; } catch { await new Promise((r) => setTimeout(r, 100)); }
+      }
+      const workers = await children(app.pid!);
+      expect(workers).toHaveLength(2);
+      const user = await makeUser();
+      const c = new Client(base);
+      await c.signIn(user.email, PASSWORD);
+      // New connections are shared out between the processes; every one of them knows the session.
+      const statuses = await Promise.all(Array.from({ length: 12 }, () => fetch(`${base}/api/me`, { headers: { cookie: c.cookieHeader(), connection: "close" } }).then((r) => r.status)));
+      expect(statuses).toEqual(Array(12).fill(200));
+      app.kill("SIGTERM");
+      expect(await exited(app)).toBe(0);
+      expect(workers.filter(alive)).toEqual([]);
+    } finally {
+      if (app.exitCode === null) app.kill("SIGKILL");
+    }
+  }, 60_000);
+
+  it("gives up, with a failing exit code, when its processes die during start-up (a port in use)", async () => {
+    const port = 48000 + Math.floor(Math.random() * 1000);
+    const blocker = net.createServer();
+    await new Promise<void>((r) => blocker.listen(port, "127.0.0.1", () => r()));
+    const app = launch(port, 2);
+    try {
+      expect(await exited(app)).not.toBe(0);
+    } finally {
+      if (app.exitCode === null) app.kill("SIGKILL");
+      blocker.close();
+    }
+  }, 60_000);
+});
+
 describe("secrets", () => {
   // What must never reach a browser or a log line: the session and key-encryption secrets, the store's secret key,
   // and a password someone typed.
