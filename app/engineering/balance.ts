@@ -7,6 +7,10 @@
 // unchanged and holds its setting under flow; a real valve falls off with flow, so add its body loss as a
 // fitting ("prv-typical") or as kTotal from the maker's curve.
 //
+// Memory stays near the size of the result itself (losses in typed arrays, profile points shared, ids numbered
+// in typed-array tables by network.ts): past a few thousand outlets the garbage collector, not the arithmetic,
+// is what a wasteful solve pays for, and it pays more than linearly.
+//
 // Difference at a mixing point: |Ph − Pc| / max(Ph, Pc) × 100, the gap as a share of the higher residual
 // pressure. Where neither side has any residual pressure left the difference is reported as 100 %.
 
@@ -19,6 +23,7 @@ import {
   defaultRoughnessMm,
   type BalanceNetwork,
   type FittingMethod,
+  type ModelOutlet,
   type ModelSegment,
   type NetworkModel,
 } from "./network";
@@ -66,6 +71,7 @@ export interface MixingPointResult {
   ok: boolean;
   /** The side with the lower residual pressure (the one to improve). */
   lowerSide: "hot" | "cold" | "equal";
+  /** Points are shared by every profile that passes the same node: read them, do not change them. */
   hotProfile: ProfilePoint[];
   coldProfile: ProfilePoint[];
 }
@@ -172,11 +178,23 @@ interface Sizing {
   boreMm: Float64Array;
 }
 
+/** Each segment's loss as one typed array per quantity: no object per segment lives through the solve. */
+interface LossTable {
+  velocityMs: Float64Array;
+  reynolds: Float64Array;
+  frictionFactor: Float64Array;
+  frictionLossKpa: Float64Array;
+  fittingLossKpa: Float64Array;
+  staticLossKpa: Float64Array;
+  totalLossKpa: Float64Array;
+}
+
 interface Solved {
   flowLps: Float64Array; // per segment
   nodeFlowLps: Float64Array;
   heaterLossKpa: number;
-  losses: SegmentLoss[];
+  losses: LossTable;
+  /** The same array as losses.totalLossKpa. */
   lossKpa: Float64Array;
   pressureKpa: Float64Array; // per node, after any PRV
 }
@@ -185,9 +203,9 @@ function roughnessOf(seg: ModelSegment, pipe: PipeSpec | undefined): number {
   return seg.roughnessOverrideMm ?? pipe?.roughnessMm ?? defaultRoughnessMm(seg);
 }
 
-function lossFor(seg: ModelSegment, pipe: PipeSpec | undefined, boreMm: number, flowLps: number): SegmentLoss {
+function lossFor(seg: ModelSegment, pipe: PipeSpec | undefined, boreMm: number, flowLps: number, into?: SegmentLoss): SegmentLoss {
   const frictionLengthM = seg.lengthM + seg.extraLengthM + seg.lengthOverDiameterTotal * (boreMm / 1000);
-  return segmentLossUnchecked(flowLps, boreMm, frictionLengthM, roughnessOf(seg, pipe), seg.tempC, seg.fixedK, seg.riseM);
+  return segmentLossUnchecked(flowLps, boreMm, frictionLengthM, roughnessOf(seg, pipe), seg.tempC, seg.fixedK, seg.riseM, into);
 }
 
 /** Post-order pass: each segment carries the design flow of everything downstream of it. */
@@ -199,13 +217,17 @@ function computeFlows(model: NetworkModel): { flowLps: Float64Array; nodeFlowLps
   // Sum in a fixed order where several outlets share a node, so results never depend on input order.
   const perNode = new Int32Array(n);
   for (const o of model.outlets) perNode[o.node]++;
-  const shared = model.outlets.filter((o) => perNode[o.node] > 1).sort((a, b) => (a.id < b.id ? -1 : 1));
+  const shared: ModelOutlet[] = [];
   for (const o of model.outlets) {
-    if (perNode[o.node] > 1) continue;
+    if (perNode[o.node] > 1) {
+      shared.push(o);
+      continue;
+    }
     stated[o.node] += o.statedFlowLps;
     luSum[o.node] += o.loadingUnits;
     if (o.loadingUnits > luMax[o.node]) luMax[o.node] = o.loadingUnits;
   }
+  shared.sort(byIdAscending);
   for (const o of shared) {
     stated[o.node] += o.statedFlowLps;
     luSum[o.node] += o.loadingUnits;
@@ -222,7 +244,7 @@ function computeFlows(model: NetworkModel): { flowLps: Float64Array; nodeFlowLps
   const nodeFlowLps = new Float64Array(n);
   for (let v = 0; v < n; v++) nodeFlowLps[v] = stated[v] + designFlowLpsFromLoadingUnits(luSum[v], luMax[v]);
   const flowLps = new Float64Array(model.segments.length);
-  model.segments.forEach((s, k) => (flowLps[k] = nodeFlowLps[s.to]));
+  for (let k = 0; k < flowLps.length; k++) flowLps[k] = nodeFlowLps[model.segments[k].to];
   return { flowLps, nodeFlowLps };
 }
 
@@ -258,12 +280,28 @@ function propagate(
 function solve(model: NetworkModel, sizing: Sizing, flows: { flowLps: Float64Array; nodeFlowLps: Float64Array }): Solved {
   // Plain loops: typed-array `from` with a mapping function goes through the iterator protocol and is slow.
   const count = model.segments.length;
-  const losses: SegmentLoss[] = new Array(count);
-  const lossKpa = new Float64Array(count);
+  const losses: LossTable = {
+    velocityMs: new Float64Array(count),
+    reynolds: new Float64Array(count),
+    frictionFactor: new Float64Array(count),
+    frictionLossKpa: new Float64Array(count),
+    fittingLossKpa: new Float64Array(count),
+    staticLossKpa: new Float64Array(count),
+    totalLossKpa: new Float64Array(count),
+  };
+  // One record, overwritten segment after segment and copied out at once.
+  let l: SegmentLoss | undefined;
   for (let k = 0; k < count; k++) {
-    losses[k] = lossFor(model.segments[k], sizing.pipe[k], sizing.boreMm[k], flows.flowLps[k]);
-    lossKpa[k] = losses[k].totalLossKpa;
+    l = lossFor(model.segments[k], sizing.pipe[k], sizing.boreMm[k], flows.flowLps[k], l);
+    losses.velocityMs[k] = l.velocityMs;
+    losses.reynolds[k] = l.reynolds;
+    losses.frictionFactor[k] = l.frictionFactor;
+    losses.frictionLossKpa[k] = l.frictionLossKpa;
+    losses.fittingLossKpa[k] = l.fittingLossKpa;
+    losses.staticLossKpa[k] = l.staticLossKpa;
+    losses.totalLossKpa[k] = l.totalLossKpa;
   }
+  const lossKpa = losses.totalLossKpa;
   const hl = heaterLoss(model, flows.nodeFlowLps);
   const pressureKpa = new Float64Array(model.nodeIds.length);
   propagate(model, lossKpa, hl, pressureKpa, 0, model.order.length);
@@ -278,6 +316,51 @@ function outcome(hot: number, cold: number, limit: number): { differencePercent:
   // Lost residual pressure outranks any imbalance: it must be restored first.
   const penalty = low <= 0 ? 1000 - low : Math.max(0, differencePercent - limit);
   return { differencePercent, ok, penalty };
+}
+
+// What runs once per element lives at module level rather than as closures inside pressureBalance: a closure
+// made afresh on every call keeps its optimised code only while one of its instances lives, so after each full
+// garbage collection a large network would be solved by unoptimised code again until recompiled.
+
+const byIdAscending = (a: { id: string }, b: { id: string }) => (a.id < b.id ? -1 : 1);
+
+interface Profiles {
+  model: NetworkModel;
+  solved: Solved;
+  distanceM: Float64Array;
+  /** A node's point reads the same in every profile that passes it, so each is made once and shared (read-only). */
+  pointAt: ProfilePoint[];
+  heaterPoints?: [ProfilePoint, ProfilePoint];
+}
+
+/** The pressure along the path from the supply to an outlet: one array per outlet, its points shared. */
+function pressureProfile(profiles: Profiles, outletNode: number): ProfilePoint[] {
+  const { model, solved, distanceM, pointAt } = profiles;
+  const { parentNode, heaterNode, nodeIds } = model;
+  let length = 0;
+  for (let v = outletNode; v !== -1; v = parentNode[v]) length += v === heaterNode ? 2 : 1;
+  const points: ProfilePoint[] = new Array(length);
+  // Filled from the outlet back, so the profile reads from the supply out.
+  let i = length;
+  for (let v = outletNode; v !== -1; v = parentNode[v]) {
+    if (v === heaterNode) {
+      profiles.heaterPoints ??= [
+        { nodeId: nodeIds[v], distanceM: distanceM[v], pressureKpa: solved.pressureKpa[v], note: "heater inlet" },
+        { nodeId: nodeIds[v], distanceM: distanceM[v], pressureKpa: solved.pressureKpa[v] - solved.heaterLossKpa, note: "heater outlet" },
+      ];
+      points[--i] = profiles.heaterPoints[1];
+      points[--i] = profiles.heaterPoints[0];
+      continue;
+    }
+    let point = pointAt[v];
+    if (point === undefined) {
+      point = { nodeId: nodeIds[v], distanceM: distanceM[v], pressureKpa: solved.pressureKpa[v] };
+      if (!Number.isNaN(model.prvSettingKpa[v])) point.note = `PRV ${model.prvSettingKpa[v]} kPa`;
+      pointAt[v] = point;
+    }
+    points[--i] = point;
+  }
+  return points;
 }
 
 export function pressureBalance(network: BalanceNetwork, options: BalanceOptions = {}): BalanceResult {
@@ -336,12 +419,10 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
   }
 
   const fast: number[] = [];
-  segments.forEach((_, k) => {
-    if (solved.losses[k].velocityMs > maxVelocityMs + 1e-12) fast.push(k);
-  });
+  for (let k = 0; k < segments.length; k++) if (solved.losses.velocityMs[k] > maxVelocityMs + 1e-12) fast.push(k);
   fast.sort((a, b) => (segments[a].id < segments[b].id ? -1 : 1));
   for (const k of fast) {
-    const v = solved.losses[k].velocityMs;
+    const v = solved.losses.velocityMs[k];
     findings.push(
       finding(
         "warn",
@@ -352,11 +433,14 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
       ),
     );
   }
-  const mixing = new Set<number>();
-  for (const m of model.mixingPoints) mixing.add(m.hot).add(m.cold);
-  const dry = model.outlets
-    .filter((o, i) => !mixing.has(i) && solved.pressureKpa[o.node] <= 0)
-    .sort((a, b) => (a.id < b.id ? -1 : 1));
+  const mixing = new Uint8Array(model.outlets.length);
+  for (const m of model.mixingPoints) mixing[m.hot] = mixing[m.cold] = 1;
+  const dry: ModelOutlet[] = [];
+  for (let i = 0; i < model.outlets.length; i++) {
+    const o = model.outlets[i];
+    if (mixing[i] === 0 && solved.pressureKpa[o.node] <= 0) dry.push(o);
+  }
+  dry.sort(byIdAscending);
   for (const o of dry) {
     findings.push(
       finding(
@@ -387,35 +471,16 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
     }
   }
 
-  const includeProfiles = options.includeProfiles ?? true;
-  const profile = (outletNode: number): ProfilePoint[] => {
-    if (!includeProfiles) return [];
-    const points: ProfilePoint[] = [];
-    for (let v = outletNode; v !== -1; v = parentNode[v]) {
-      if (v === model.heaterNode) {
-        points.push({
-          nodeId: nodeIds[v],
-          distanceM: distanceM[v],
-          pressureKpa: solved.pressureKpa[v] - solved.heaterLossKpa,
-          note: "heater outlet",
-        });
-        points.push({ nodeId: nodeIds[v], distanceM: distanceM[v], pressureKpa: solved.pressureKpa[v], note: "heater inlet" });
-      } else {
-        const point: ProfilePoint = { nodeId: nodeIds[v], distanceM: distanceM[v], pressureKpa: solved.pressureKpa[v] };
-        if (!Number.isNaN(model.prvSettingKpa[v])) point.note = `PRV ${model.prvSettingKpa[v]} kPa`;
-        points.push(point);
-      }
-    }
-    return points.reverse();
-  };
-
-  const mixingPoints: MixingPointResult[] = model.mixingPoints.map((m) => {
+  const profiles: Profiles | undefined = (options.includeProfiles ?? true) ? { model, solved, distanceM, pointAt: new Array(n) } : undefined;
+  const mixingPoints: MixingPointResult[] = new Array(model.mixingPoints.length);
+  for (let i = 0; i < mixingPoints.length; i++) {
+    const m = model.mixingPoints[i];
     const hotNode = model.outlets[m.hot].node;
     const coldNode = model.outlets[m.cold].node;
     const hot = solved.pressureKpa[hotNode];
     const cold = solved.pressureKpa[coldNode];
     const o = outcome(hot, cold, limit);
-    return {
+    mixingPoints[i] = {
       id: m.id,
       hotOutletId: model.outlets[m.hot].id,
       coldOutletId: model.outlets[m.cold].id,
@@ -425,11 +490,13 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
       limitPercent: limit,
       ok: o.ok,
       lowerSide: hot < cold ? "hot" : cold < hot ? "cold" : "equal",
-      hotProfile: profile(hotNode),
-      coldProfile: profile(coldNode),
+      hotProfile: profiles ? pressureProfile(profiles, hotNode) : [],
+      coldProfile: profiles ? pressureProfile(profiles, coldNode) : [],
     };
-  });
-  const failing = mixingPoints.filter((m) => !m.ok).sort((a, b) => (a.id < b.id ? -1 : 1));
+  }
+  const failing: MixingPointResult[] = [];
+  for (const m of mixingPoints) if (!m.ok) failing.push(m);
+  failing.sort(byIdAscending);
   for (const m of failing) {
     if (Math.min(m.hotResidualKpa, m.coldResidualKpa) <= 0) {
       findings.push(
@@ -455,11 +522,13 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
     }
   }
 
-  const segmentResults: SegmentResult[] = segments.map((s, k) => {
-    const l = solved.losses[k];
+  const losses = solved.losses;
+  const segmentResults: SegmentResult[] = new Array(segments.length);
+  for (let k = 0; k < segments.length; k++) {
+    const s = segments[k];
     const p = s.from;
     const inlet = solved.pressureKpa[p] - (p === model.heaterNode ? solved.heaterLossKpa : 0);
-    return {
+    segmentResults[k] = {
       id: s.id,
       service: s.service,
       pipeId: s.pipe?.id,
@@ -467,17 +536,17 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
       roughnessMm: roughnessOf(s, s.pipe),
       tempC: s.tempC,
       flowLps: flows.flowLps[k],
-      velocityMs: l.velocityMs,
-      reynolds: l.reynolds,
-      frictionFactor: l.frictionFactor,
-      frictionLossKpa: l.frictionLossKpa,
-      fittingLossKpa: l.fittingLossKpa,
-      staticLossKpa: l.staticLossKpa,
-      totalLossKpa: l.totalLossKpa,
+      velocityMs: losses.velocityMs[k],
+      reynolds: losses.reynolds[k],
+      frictionFactor: losses.frictionFactor[k],
+      frictionLossKpa: losses.frictionLossKpa[k],
+      fittingLossKpa: losses.fittingLossKpa[k],
+      staticLossKpa: losses.staticLossKpa[k],
+      totalLossKpa: losses.totalLossKpa[k],
       inletPressureKpa: inlet,
-      outletPressureKpa: inlet - l.totalLossKpa,
+      outletPressureKpa: inlet - losses.totalLossKpa[k],
     };
-  });
+  }
 
   const nodes: NodeResult[] = new Array(n);
   for (let k = 0; k < n; k++) {
@@ -497,8 +566,14 @@ export function pressureBalance(network: BalanceNetwork, options: BalanceOptions
   }
 
   const designFlowMethod: { method: string; source: string }[] = [];
-  if (model.outlets.some((o) => o.basis === "loadingUnits")) designFlowMethod.push(DESIGN_FLOW_METHOD.loadingUnits);
-  if (model.outlets.some((o) => o.basis === "stated")) designFlowMethod.push(DESIGN_FLOW_METHOD.stated);
+  let byLoadingUnits = false;
+  let stated = false;
+  for (const o of model.outlets) {
+    if (o.basis === "loadingUnits") byLoadingUnits = true;
+    else stated = true;
+  }
+  if (byLoadingUnits) designFlowMethod.push(DESIGN_FLOW_METHOD.loadingUnits);
+  if (stated) designFlowMethod.push(DESIGN_FLOW_METHOD.stated);
 
   const needsSuggestion =
     mixingPoints.some((m) => !m.ok) || findings.some((f) => f.code === "velocity-exceeded");
@@ -553,7 +628,7 @@ function suggestChanges(
   const notes: string[] = [];
   const pipe = [...original.pipe];
   const bore = Float64Array.from(original.boreMm);
-  const losses = [...base.losses];
+  const velocity = Float64Array.from(base.losses.velocityMs);
   const lossKpa = Float64Array.from(base.lossKpa);
   const pressure = Float64Array.from(base.pressureKpa);
   const scratch = new Float64Array(n);
@@ -637,15 +712,16 @@ function suggestChanges(
     upsizedLoss[k] = NaN;
     pipe[k] = next;
     bore[k] = internalDiameterMm(next);
-    losses[k] = lossFor(segments[k], next, bore[k], flows.flowLps[k]);
-    lossKpa[k] = losses[k].totalLossKpa;
+    const l = lossFor(segments[k], next, bore[k], flows.flowLps[k]);
+    velocity[k] = l.velocityMs;
+    lossKpa[k] = l.totalLossKpa;
   };
 
   // 1. Velocity: the smallest size in the series that meets the limit.
   const bySegmentId = segments.map((_, k) => k).sort((a, b) => (segments[a].id < segments[b].id ? -1 : 1));
   const velocityStuck = new Set<number>();
   for (const k of bySegmentId) {
-    if (losses[k].velocityMs <= settings.maxVelocityMs) continue;
+    if (velocity[k] <= settings.maxVelocityMs) continue;
     const current = pipe[k];
     if (!current) {
       notes.push(`Segment "${segments[k].id}" exceeds the velocity limit but has no catalogue pipe to upsize.`);
@@ -750,8 +826,7 @@ function suggestChanges(
     const from = original.pipe[k];
     const to = pipe[k];
     if (!from || !to || from === to) continue;
-    const before = base.losses[k];
-    const wasFast = before.velocityMs > settings.maxVelocityMs;
+    const wasFast = base.losses.velocityMs[k] > settings.maxVelocityMs;
     changes.push({
       segmentId: segments[k].id,
       reason: wasFast ? "velocity" : "balance",
@@ -759,17 +834,17 @@ function suggestChanges(
       toPipeId: to.id,
       fromInternalDiameterMm: original.boreMm[k],
       toInternalDiameterMm: bore[k],
-      velocityBeforeMs: before.velocityMs,
-      velocityAfterMs: losses[k].velocityMs,
-      lossBeforeKpa: before.totalLossKpa,
-      lossAfterKpa: losses[k].totalLossKpa,
+      velocityBeforeMs: base.losses.velocityMs[k],
+      velocityAfterMs: velocity[k],
+      lossBeforeKpa: base.losses.totalLossKpa[k],
+      lossAfterKpa: lossKpa[k],
     });
   }
   const after: MixingPointOutcome[] = mixingPoints.map((mp, i) => {
     const o = outcome(pressure[hotNode[i]], pressure[coldNode[i]], settings.limit);
     return { id: mp.id, hotResidualKpa: pressure[hotNode[i]], coldResidualKpa: pressure[coldNode[i]], differencePercent: o.differencePercent, ok: o.ok };
   });
-  const velocitiesOk = segments.every((_, k) => losses[k].velocityMs <= settings.maxVelocityMs + 1e-12);
+  const velocitiesOk = segments.every((_, k) => velocity[k] <= settings.maxVelocityMs + 1e-12);
   const resolved = total <= 1e-9 && velocitiesOk;
   if (!resolved && total > 1e-9) {
     notes.push("Upsizing within the catalogue does not bring every mixing point within the limit; review the layout or pressures.");

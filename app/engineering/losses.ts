@@ -53,7 +53,11 @@ export function segmentLoss(input: SegmentLossInput): SegmentLoss {
   return segmentLossUnchecked(flowLps, internalDiameterMm, lengthM + equivalentLengthM, roughnessMm, tempC, kTotal, riseM);
 }
 
-/** segmentLoss without input checks, for the balance solver, whose network is validated once up front. */
+/**
+ * segmentLoss without input checks, for the balance solver, whose network is validated once up front. With
+ * `into` the figures overwrite that record instead of a new one, so a solver reading them at once can reuse one
+ * record for every segment of a large network.
+ */
 export function segmentLossUnchecked(
   flowLps: number,
   internalDiameterMm: number,
@@ -62,6 +66,7 @@ export function segmentLossUnchecked(
   tempC: number,
   kTotal: number,
   riseM: number,
+  into?: SegmentLoss,
 ): SegmentLoss {
   const water = waterProperties(tempC);
   const d = internalDiameterMm / 1000;
@@ -70,32 +75,36 @@ export function segmentLossUnchecked(
   const staticLossKpa = (water.densityKgM3 * STANDARD_GRAVITY_MS2 * riseM) / 1000;
   const reynolds = (velocityMs * d) / water.kinematicViscosityM2S;
   // Below this nothing measurable flows, and 64/Re would overflow to Infinity.
-  if (reynolds < NO_FLOW_REYNOLDS) {
-    return {
-      velocityMs: 0,
-      reynolds: 0,
-      frictionFactor: 0,
-      frictionLossKpa: 0,
-      fittingLossKpa: 0,
-      staticLossKpa,
-      totalLossKpa: staticLossKpa,
-      densityKgM3: water.densityKgM3,
-    };
-  }
+  if (reynolds < NO_FLOW_REYNOLDS) return lossRecord(into, 0, 0, 0, 0, 0, staticLossKpa, staticLossKpa, water.densityKgM3);
   const frictionFactor = darcyFrictionFactorUnchecked(reynolds, roughnessMm / internalDiameterMm);
   const dynamicPressurePa = (water.densityKgM3 * velocityMs * velocityMs) / 2;
   const frictionLossKpa = (frictionFactor * (frictionLengthM / d) * dynamicPressurePa) / 1000;
   const fittingLossKpa = (kTotal * dynamicPressurePa) / 1000;
-  return {
-    velocityMs,
-    reynolds,
-    frictionFactor,
-    frictionLossKpa,
-    fittingLossKpa,
-    staticLossKpa,
-    totalLossKpa: frictionLossKpa + fittingLossKpa + staticLossKpa,
-    densityKgM3: water.densityKgM3,
-  };
+  const totalLossKpa = frictionLossKpa + fittingLossKpa + staticLossKpa;
+  return lossRecord(into, velocityMs, reynolds, frictionFactor, frictionLossKpa, fittingLossKpa, staticLossKpa, totalLossKpa, water.densityKgM3);
+}
+
+function lossRecord(
+  into: SegmentLoss | undefined,
+  velocityMs: number,
+  reynolds: number,
+  frictionFactor: number,
+  frictionLossKpa: number,
+  fittingLossKpa: number,
+  staticLossKpa: number,
+  totalLossKpa: number,
+  densityKgM3: number,
+): SegmentLoss {
+  if (!into) return { velocityMs, reynolds, frictionFactor, frictionLossKpa, fittingLossKpa, staticLossKpa, totalLossKpa, densityKgM3 };
+  into.velocityMs = velocityMs;
+  into.reynolds = reynolds;
+  into.frictionFactor = frictionFactor;
+  into.frictionLossKpa = frictionLossKpa;
+  into.fittingLossKpa = fittingLossKpa;
+  into.staticLossKpa = staticLossKpa;
+  into.totalLossKpa = totalLossKpa;
+  into.densityKgM3 = densityKgM3;
+  return into;
 }
 
 export interface HazenWilliamsInput {

@@ -3,6 +3,7 @@
 // pre-order, so results never depend on the order the caller listed things in.
 
 import { FIXTURE_DEMAND, type FixtureType } from "./demand";
+import { IdTable } from "./ids";
 import { MAX_RELATIVE_ROUGHNESS } from "./friction";
 import { fittingCatalogue as defaultFittings, type FittingCount, type FittingType } from "./fittings";
 import { internalDiameterMm, pipeCatalogue as defaultPipes, type PipeSpec } from "./pipes";
@@ -183,12 +184,21 @@ function indexById<T extends { id: string }>(rows: readonly T[]): Map<string, T>
   return index;
 }
 
+// What the per-element loops call lives out here, not as closures inside buildNetworkModel: a closure made
+// afresh on every call keeps its optimised code only while one of its instances lives, so after each full
+// garbage collection a large network's loops would run unoptimised again until recompiled.
+
 // Names and paths for messages are built only when there is something to report.
 const segmentName = (s: NetworkSegmentInput | undefined, i: number) => `Segment "${s?.id ?? i}"`;
 const segPath = (i: number, field: string): (string | number)[] => ["segments", i, field];
+const outletName = (o: NetworkOutletInput | undefined, i: number) => `Outlet "${o?.id ?? i}"`;
+const mixingName = (m: MixingPointInput | undefined, i: number) => `Mixing point "${m?.id ?? i}"`;
 
 const isFiniteNumber = (v: unknown): v is number => typeof v === "number" && Number.isFinite(v);
 const byId = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+const bySegmentId = (a: ModelSegment, b: ModelSegment) => byId(a.id, b.id);
+const { min: tMin, max: tMax } = WATER_TEMPERATURE_RANGE_C;
+const tempOk = (t: number) => isFiniteNumber(t) && t >= tMin && t <= tMax;
 
 export interface ModelOptions {
   pipeCatalogue?: readonly PipeSpec[];
@@ -224,8 +234,6 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   const mixingIn = Array.isArray(network.mixingPoints) ? network.mixingPoints : [];
   const hotTempC = network.hotTempC ?? DEFAULT_HOT_TEMP_C;
   const coldTempC = network.coldTempC ?? DEFAULT_COLD_TEMP_C;
-  const { min: tMin, max: tMax } = WATER_TEMPERATURE_RANGE_C;
-  const tempOk = (t: number) => isFiniteNumber(t) && t >= tMin && t <= tMax;
 
   if (!supply || typeof supply.nodeId !== "string" || supply.nodeId === "") {
     issue(["supply", "nodeId"], "The supply needs a node id");
@@ -248,32 +256,23 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   if (segmentsIn.length === 0) issue(["segments"], "The network has no segments");
 
   // Nodes: the supply node first, then segment ends in input order.
-  const nodeIndex = new Map<string, number>();
-  const nodeIds: string[] = [];
-  const nodeOf = (id: string) => {
-    let i = nodeIndex.get(id);
-    if (i === undefined) {
-      i = nodeIds.length;
-      nodeIndex.set(id, i);
-      nodeIds.push(id);
-    }
-    return i;
-  };
+  // A tree has one node more than it has segments.
+  const nodeIndex = new IdTable(segmentsIn.length + 1);
+  const nodeIds = nodeIndex.ids;
   const rootId = supply?.nodeId ?? "";
-  nodeOf(rootId);
+  nodeIndex.add(rootId);
 
   const segments: ModelSegment[] = [];
-  const segIds = new Set<string>();
+  const segIds = new IdTable(segmentsIn.length);
   for (let i = 0; i < segmentsIn.length; i++) {
     const s = segmentsIn[i];
     if (!s || typeof s.id !== "string" || s.id === "") {
       issue(["segments", i, "id"], `Segment ${i + 1} needs an id`);
       continue;
     }
-    // One hash per id: the set grows unless the id was already there.
+    // One lookup per id: an id already there keeps its older number.
     const seen = segIds.size;
-    segIds.add(s.id);
-    if (segIds.size === seen) issue(segPath(i, "id"), `${segmentName(s, i)} appears more than once`, s.id);
+    if (segIds.add(s.id) < seen) issue(segPath(i, "id"), `${segmentName(s, i)} appears more than once`, s.id);
     let bad = false;
     if (typeof s.fromNodeId !== "string" || s.fromNodeId === "") {
       issue(segPath(i, "fromNodeId"), `${segmentName(s, i)} needs a from-node`, s.id);
@@ -353,8 +352,8 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
     segments.push({
       id: s.id,
       inputIndex: i,
-      from: nodeOf(s.fromNodeId),
-      to: nodeOf(s.toNodeId),
+      from: nodeIndex.add(s.fromNodeId),
+      to: nodeIndex.add(s.toNodeId),
       service: s.service,
       lengthM: s.lengthM,
       riseM: isFiniteNumber(riseM) ? riseM : 0,
@@ -373,40 +372,45 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   const root = 0;
   const parentSeg = new Int32Array(n).fill(-1);
   const parentNode = new Int32Array(n).fill(-1);
-  const toNodePath = (s: ModelSegment) => ["segments", s.inputIndex, "toNodeId"];
-  segments.forEach((s, k) => {
+  for (let k = 0; k < segments.length; k++) {
+    const s = segments[k];
     if (s.to === root) {
-      issue(toNodePath(s), `Segment "${s.id}" feeds the supply node "${rootId}"; the supply must be the start of the network`, s.id);
-      return;
+      issue(["segments", s.inputIndex, "toNodeId"], `Segment "${s.id}" feeds the supply node "${rootId}"; the supply must be the start of the network`, s.id);
+      continue;
     }
     const existing = parentSeg[s.to];
     if (existing !== -1) {
       issue(
-        toNodePath(s),
+        ["segments", s.inputIndex, "toNodeId"],
         `Node "${nodeIds[s.to]}" is fed by two segments ("${segments[existing].id}" and "${s.id}"); the network must be a tree`,
         s.id,
       );
-      return;
+      continue;
     }
     parentSeg[s.to] = k;
     parentNode[s.to] = s.from;
-  });
+  }
 
   // Children of each node as one flat array (childStart[v] .. childStart[v + 1]), in segment-id order.
   const childStart = new Int32Array(n + 1);
-  segments.forEach((s, k) => {
+  for (let k = 0; k < segments.length; k++) {
+    const s = segments[k];
     if (parentSeg[s.to] === k) childStart[s.from + 1]++;
-  });
+  }
   for (let v = 0; v < n; v++) childStart[v + 1] += childStart[v];
-  const children = new Int32Array(childStart[n]);
+  const children: ModelSegment[] = new Array(childStart[n]);
   {
     const fill = childStart.slice(0, n);
-    segments.forEach((s, k) => {
-      if (parentSeg[s.to] === k) children[fill[s.from]++] = k;
-    });
-    const bySegId = (a: number, b: number) => byId(segments[a].id, segments[b].id);
+    for (let k = 0; k < segments.length; k++) {
+      const s = segments[k];
+      if (parentSeg[s.to] === k) children[fill[s.from]++] = s;
+    }
     for (let v = 0; v < n; v++) {
-      if (childStart[v + 1] - childStart[v] > 1) children.subarray(childStart[v], childStart[v + 1]).sort(bySegId);
+      const lo = childStart[v];
+      const hi = childStart[v + 1];
+      if (hi - lo < 2) continue;
+      const sorted = children.slice(lo, hi).sort(bySegmentId);
+      for (let j = 0; j < sorted.length; j++) children[lo + j] = sorted[j];
     }
   }
 
@@ -426,7 +430,7 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
       tin[top] = count;
       order[count++] = top;
       stack.push(~top);
-      for (let k = childStart[top + 1] - 1; k >= childStart[top]; k--) stack.push(segments[children[k]].to);
+      for (let k = childStart[top + 1] - 1; k >= childStart[top]; k--) stack.push(children[k].to);
     }
   }
   if (count < n) {
@@ -471,13 +475,13 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   const treeOk = count === n && !issues.some((i) => i.path[0] === "segments" && i.path[2] === "toNodeId");
 
   // Heater, PRVs, outlets and mixing points, which refer to nodes.
-  const known = (id: unknown): id is string => typeof id === "string" && nodeIndex.has(id);
   let heaterNode = -1;
   const heater = network.heater;
   if (heater) {
-    if (!known(heater.nodeId)) issue(["heater", "nodeId"], `The heater node "${String(heater.nodeId)}" is not in the network`);
-    else if (nodeIndex.get(heater.nodeId) === root) issue(["heater", "nodeId"], "The heater cannot sit at the supply node");
-    else heaterNode = nodeIndex.get(heater.nodeId)!;
+    const v = nodeIndex.get(heater.nodeId);
+    if (v === -1) issue(["heater", "nodeId"], `The heater node "${String(heater.nodeId)}" is not in the network`);
+    else if (v === root) issue(["heater", "nodeId"], "The heater cannot sit at the supply node");
+    else heaterNode = v;
     if (!isFiniteNumber(heater.pressureLossKpa) || heater.pressureLossKpa < 0) {
       issue(["heater", "pressureLossKpa"], "The heater pressure loss must be given and cannot be negative");
     }
@@ -493,11 +497,11 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   (network.prvs ?? []).forEach((prv, i) => prvs.push({ prv, path: ["prvs", i] }));
   for (const { prv, path } of prvs) {
     const label = prv?.id ? `PRV "${prv.id}"` : "A PRV";
-    if (!prv || !known(prv.nodeId)) {
+    const v = prv ? nodeIndex.get(prv.nodeId) : -1;
+    if (v === -1) {
       issue([...path, "nodeId"], `${label} sits at node "${String(prv?.nodeId)}", which is not in the network`, prv?.id);
       continue;
     }
-    const v = nodeIndex.get(prv.nodeId)!;
     if (!isFiniteNumber(prv.settingKpa) || prv.settingKpa <= 0) {
       issue([...path, "settingKpa"], `${label} needs a setting greater than zero`, prv.id);
       continue;
@@ -519,14 +523,9 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   }
 
   // Downstream of the heater is hot; everything else is cold.
-  const hotBelow = (v: number): boolean => {
-    if (heaterNode === -1 || !treeOk) return false;
-    return tin[v] > tin[heaterNode] && tin[v] < tout[heaterNode];
-  };
-  if (treeOk) {
+  if (treeOk && heaterNode !== -1) {
     for (const s of segments) {
-      if (heaterNode === -1) continue;
-      const downstream = hotBelow(s.to);
+      const downstream = tin[s.to] > tin[heaterNode] && tin[s.to] < tout[heaterNode];
       if (s.service === "hot" && !downstream) {
         issue(["segments", s.inputIndex, "service"], `Segment "${s.id}" is marked hot but is not downstream of the heater`, s.id);
       } else if (s.service === "cold" && downstream) {
@@ -536,53 +535,52 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
   }
 
   const outlets: ModelOutlet[] = [];
-  const outletIndex = new Map<string, number>();
-  // Names for messages are built only when there is a problem to report.
-  const outletName = (o: NetworkOutletInput | undefined, i: number) => `Outlet "${o?.id ?? i}"`;
-  outletsIn.forEach((o, i) => {
+  const outletIndex = new IdTable(outletsIn.length);
+  for (let i = 0; i < outletsIn.length; i++) {
+    const o = outletsIn[i];
     if (!o || typeof o.id !== "string" || o.id === "") {
       issue(["outlets", i, "id"], `Outlet ${i + 1} needs an id`);
-      return;
+      continue;
     }
-    if (outletIndex.has(o.id)) {
+    if (outletIndex.get(o.id) !== -1) {
       issue(["outlets", i, "id"], `${outletName(o, i)} appears more than once`, o.id);
-      return;
+      continue;
     }
-    if (!known(o.nodeId)) {
+    const node = nodeIndex.get(o.nodeId);
+    if (node === -1) {
       issue(["outlets", i, "nodeId"], `${outletName(o, i)} sits at node "${String(o.nodeId)}", which is not in the network`, o.id);
-      return;
+      continue;
     }
-    const node = nodeIndex.get(o.nodeId)!;
     if (node === root) {
       issue(["outlets", i, "nodeId"], `${outletName(o, i)} sits at the supply node; put it at the end of a segment`, o.id);
-      return;
+      continue;
     }
     let statedFlowLps = 0;
     let loadingUnits = 0;
     if (o.flowLps !== undefined) {
       if (!isFiniteNumber(o.flowLps) || o.flowLps < 0) {
         issue(["outlets", i, "flowLps"], `${outletName(o, i)} has a negative or invalid flow`, o.id);
-        return;
+        continue;
       }
       statedFlowLps = o.flowLps;
     } else if (o.loadingUnits !== undefined) {
       if (!isFiniteNumber(o.loadingUnits) || o.loadingUnits < 0) {
         issue(["outlets", i, "loadingUnits"], `${outletName(o, i)} has negative or invalid loading units`, o.id);
-        return;
+        continue;
       }
       loadingUnits = o.loadingUnits;
     } else if (o.fixture !== undefined) {
       const demand = FIXTURE_DEMAND[o.fixture];
       if (!demand) {
         issue(["outlets", i, "fixture"], `${outletName(o, i)} has an unknown fixture type "${String(o.fixture)}"`, o.id);
-        return;
+        continue;
       }
       loadingUnits = demand.loadingUnits;
     } else {
       issue(["outlets", i, "flowLps"], `${outletName(o, i)} needs a flow, loading units or a fixture type`, o.id);
-      return;
+      continue;
     }
-    outletIndex.set(o.id, outlets.length);
+    outletIndex.add(o.id); // numbered as it is pushed, so its number is its place in outlets
     outlets.push({
       id: o.id,
       inputIndex: i,
@@ -591,37 +589,36 @@ export function buildNetworkModel(network: BalanceNetwork, options: ModelOptions
       loadingUnits,
       basis: o.flowLps !== undefined ? "stated" : "loadingUnits",
     });
-  });
+  }
 
   const mixingPoints: ModelMixingPoint[] = [];
-  const mixingIds = new Set<string>();
-  const mixingName = (m: MixingPointInput | undefined, i: number) => `Mixing point "${m?.id ?? i}"`;
-  mixingIn.forEach((m, i) => {
+  const mixingIds = new IdTable(mixingIn.length);
+  for (let i = 0; i < mixingIn.length; i++) {
+    const m = mixingIn[i];
     if (!m || typeof m.id !== "string" || m.id === "") {
       issue(["mixingPoints", i, "id"], `Mixing point ${i + 1} needs an id`);
-      return;
+      continue;
     }
-    if (mixingIds.has(m.id)) {
+    const seen = mixingIds.size;
+    if (mixingIds.add(m.id) < seen) {
       issue(["mixingPoints", i, "id"], `${mixingName(m, i)} appears more than once`, m.id);
-      return;
+      continue;
     }
-    mixingIds.add(m.id);
     const hot = outletIndex.get(m.hotOutletId);
     const cold = outletIndex.get(m.coldOutletId);
-    if (hot === undefined) issue(["mixingPoints", i, "hotOutletId"], `${mixingName(m, i)} refers to unknown outlet "${String(m.hotOutletId)}"`, m.id);
-    if (cold === undefined) issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)} refers to unknown outlet "${String(m.coldOutletId)}"`, m.id);
-    if (hot === undefined || cold === undefined) return;
+    if (hot === -1) issue(["mixingPoints", i, "hotOutletId"], `${mixingName(m, i)} refers to unknown outlet "${String(m.hotOutletId)}"`, m.id);
+    if (cold === -1) issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)} refers to unknown outlet "${String(m.coldOutletId)}"`, m.id);
+    if (hot === -1 || cold === -1) continue;
     if (hot === cold) {
       issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)} joins outlet "${m.hotOutletId}" to itself`, m.id);
-      return;
+      continue;
     }
     if (treeOk) {
-      const serviceAt = (o: number) => segments[parentSeg[outlets[o].node]].service;
-      if (serviceAt(hot) !== "hot") issue(["mixingPoints", i, "hotOutletId"], `${mixingName(m, i)}: outlet "${m.hotOutletId}" is not on a hot pipe`, m.id);
-      if (serviceAt(cold) !== "cold") issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)}: outlet "${m.coldOutletId}" is not on a cold pipe`, m.id);
+      if (segments[parentSeg[outlets[hot].node]].service !== "hot") issue(["mixingPoints", i, "hotOutletId"], `${mixingName(m, i)}: outlet "${m.hotOutletId}" is not on a hot pipe`, m.id);
+      if (segments[parentSeg[outlets[cold].node]].service !== "cold") issue(["mixingPoints", i, "coldOutletId"], `${mixingName(m, i)}: outlet "${m.coldOutletId}" is not on a cold pipe`, m.id);
     }
     mixingPoints.push({ id: m.id, inputIndex: i, hot, cold });
-  });
+  }
 
   if (issues.length) throw new NetworkValidationError(issues);
 
