@@ -2,10 +2,13 @@
 //
 //   runLoad({ baseUrl, cookie, connections = 50, durationSec = 60, target?, databaseUrl? }) → Promise<LoadResults>
 //
-// All endpoints are loaded at once for durationSec, the connections shared out between them (mixed traffic, as a
-// busy project sees it); every response time is kept, so p50/p95/p99 are exact. Then, unless databaseUrl is null,
-// the same rows each endpoint reads are fetched by bare SQL through node-postgres on the same database, by a pool of
-// `connections` clients shared out the same way, for the same duration: `ratioP95` = app p95 / bare p95.
+// Two runs of durationSec each, `connections` shared out between the endpoints of the run (mixed traffic, as a busy
+// project sees it): first what carries the budget — the review desk's loader (its data request, as the browser
+// makes it on navigation) and the main API reads — then the whole pages, documents rendered on the server, which
+// are reported beside it. Every response time is kept, so p50/p95/p99 are exact. After each run, unless
+// databaseUrl is null, the same rows each endpoint reads are fetched by bare SQL through node-postgres on the same
+// database, by a pool of `connections` clients shared out the same way, for the same duration: `ratioP95` = app
+// p95 / bare p95.
 // `target` (project, request in review, a revision it has markups on, the signed-in user) is found through the
 // API when not given (the caller's project with the most requests).
 //
@@ -89,22 +92,25 @@ export interface LoadResults {
 export interface Endpoint {
   name: string;
   path: string;
-  /** The review loader and the main API reads carry the latency budget; the other pages are reported. */
+  /** The review loader and the main API reads carry the latency budget (and are loaded together); the pages are reported. */
   budgeted: boolean;
+  /** The bare-SQL statements it is compared with (bareQueries), when not its own name. */
+  bareAs?: string;
 }
 
 export function endpoints(t: LoadTarget): Endpoint[] {
   const p = `/projects/${t.projectId}`;
   const api = `/api/projects/${t.projectId}`;
   return [
-    { name: "project page", path: p, budgeted: false },
-    { name: "drawings register", path: `${p}/drawings`, budgeted: false },
-    { name: "requests list", path: `${p}/requests`, budgeted: false },
-    { name: "review desk", path: `${p}/requests/${t.requestId}/review`, budgeted: true },
-    { name: "request sheet", path: `${p}/requests/${t.requestId}/sheet?rev=${t.revisionId}`, budgeted: false },
+    { name: "review desk loader", path: `${p}/requests/${t.requestId}/review.data`, budgeted: true, bareAs: "review desk" },
     { name: "GET requests", path: `${api}/requests`, budgeted: true },
     { name: "GET drawings", path: `${api}/drawings`, budgeted: true },
     { name: "GET markups", path: `${api}/requests/${t.requestId}/markups`, budgeted: true },
+    { name: "project page", path: p, budgeted: false },
+    { name: "drawings register", path: `${p}/drawings`, budgeted: false },
+    { name: "requests list", path: `${p}/requests`, budgeted: false },
+    { name: "review desk page", path: `${p}/requests/${t.requestId}/review`, budgeted: false, bareAs: "review desk" },
+    { name: "request sheet", path: `${p}/requests/${t.requestId}/sheet?rev=${t.revisionId}`, budgeted: false },
   ];
 }
 
@@ -116,7 +122,7 @@ export function percentiles(xs: number[]): Percentiles {
 }
 
 const IDLE_RUNS = 10;
-const acceptFor = (e: Endpoint) => (e.path.startsWith("/api/") ? "application/json" : "text/html");
+const acceptFor = (e: Endpoint) => (e.path.startsWith("/api/") ? "application/json" : e.path.includes(".data") ? "*/*" : "text/html");
 
 /** `n` connections shared out over `k` endpoints, none left without one. */
 function shares(n: number, k: number) {
@@ -175,7 +181,7 @@ async function loadBare(databaseUrl: string, target: LoadTarget, list: Endpoint[
       const times: number[] = [];
       for (let i = 0; i < IDLE_RUNS; i++) {
         const t0 = performance.now();
-        for (const q of queries[e.name]!) await pool.query(q.sql, q.params);
+        for (const q of queries[e.bareAs ?? e.name]!) await pool.query(q.sql, q.params);
         times.push(performance.now() - t0);
       }
       idle.set(e.name, percentiles(times).p50);
@@ -188,7 +194,7 @@ async function loadBare(databaseUrl: string, target: LoadTarget, list: Endpoint[
           Array.from({ length: split[i]! }, async () => {
             while (performance.now() < until) {
               const t0 = performance.now();
-              for (const q of queries[e.name]!) await pool.query(q.sql, q.params);
+              for (const q of queries[e.bareAs ?? e.name]!) await pool.query(q.sql, q.params);
               times.push(performance.now() - t0);
             }
           }),
@@ -222,10 +228,17 @@ export async function runLoad(options: LoadOptions): Promise<LoadResults> {
     }
     idle.set(e.name, percentiles(times).p50);
   }
-  const app = await loadApp(baseUrl, cookie, list, connections, durationSec);
-  const bare = databaseUrl ? await loadBare(databaseUrl, target, list, connections, durationSec, rowsOf) : null;
+  // The budgeted endpoints are loaded together, then the pages; each run followed by its bare-SQL baseline.
+  const groups = [list.filter((e) => e.budgeted), list.filter((e) => !e.budgeted)];
+  const loaded = groups.flat();
+  const app: Awaited<ReturnType<typeof loadApp>> = [];
+  const bare: Awaited<ReturnType<typeof loadBare>> | null = databaseUrl ? [] : null;
+  for (const group of groups) {
+    app.push(...(await loadApp(baseUrl, cookie, group, connections, durationSec)));
+    if (bare) bare.push(...(await loadBare(databaseUrl!, target, group, connections, durationSec, rowsOf)));
+  }
   const ratio = (a: number, b: number | undefined) => (b ? Math.round((a / b) * 10) / 10 : null);
-  const rows: EndpointResult[] = list.map((e, i) => {
+  const rows: EndpointResult[] = loaded.map((e, i) => {
     const a = app[i]!;
     const pa = percentiles(a.times);
     const b = bare ? { runs: bare[i]!.times.length, idleP50: bare[i]!.idleP50, ...percentiles(bare[i]!.times) } : null;

@@ -108,7 +108,7 @@ export function rows(dir = BENCH_DIR): ReportRow[] {
       return "50 connections";
     }
   };
-  for (const name of ["review desk", "GET requests", "GET drawings", "GET markups"]) {
+  for (const name of ["review desk loader", "GET requests", "GET drawings", "GET markups"]) {
     out.push(
       row(`${name}, ${loadShape()}, large project`, "ms p95", "p95 ≤ 25 ms; ≤ 3× the bare query", () => {
         const runs = loads().map((r) => {
