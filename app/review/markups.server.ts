@@ -90,8 +90,16 @@ export async function markupsOf(projectId: string, requestId: string, filter: Ma
     where.revisionId = filter.revisionId;
   }
   if (filter.page) where.page = filter.page;
-  const rows = await Markup.findAll({ where, include: [{ model: User, as: "author", attributes: ["id", "name"] }], order: [["createdAt", "ASC"], ["id", "ASC"]] });
-  return rows.map(toView);
+  // Plain rows: a request can carry thousands of markups, and each would otherwise become a model instance.
+  const rows = await Markup.findAll({
+    where,
+    attributes: ["id", "revisionId", "page", "kind", "shape", "authorId", "version", "updatedAt"],
+    include: [{ model: User, as: "author", attributes: ["id", "name"] }],
+    order: [["createdAt", "ASC"], ["id", "ASC"]],
+    raw: true,
+    nest: true,
+  });
+  return rows.map((m) => toView(m as Markup));
 }
 
 /** The non-deleted markups of a request on the given revisions, for the signed pack and its record. */
