@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { compareLabels, isValidLabel, labelKind, nextLabel } from "./labels";
+import { compareLabels, compareSheetNumbers, isValidLabel, labelKind, nextLabel } from "./labels";
 
 describe("revision labels", () => {
   it("accepts the project scheme and nothing else", () => {
@@ -26,5 +26,12 @@ describe("revision labels", () => {
   it("orders every preliminary label before every construction label", () => {
     expect(["B", "P10", "A", "P2", "P1"].sort(compareLabels)).toEqual(["P1", "P2", "P10", "A", "B"]);
     expect(compareLabels("Z", "AA")).toBeLessThan(0);
+  });
+});
+
+describe("compareSheetNumbers", () => {
+  it("orders sheet numbers exactly as localeCompare does", () => {
+    const sheets = ["PL-0105", "pl-0104", "PL-10", "PL-9", "ME-001", "Ä-1", "A-1", "a-1", "PL 0105", "PL-0105a", "", "ZZ"];
+    expect([...sheets].sort(compareSheetNumbers)).toEqual([...sheets].sort((a, b) => a.localeCompare(b)));
   });
 });

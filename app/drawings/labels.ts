@@ -37,6 +37,9 @@ export function labelRank(label: string): number {
   return Number.MAX_SAFE_INTEGER;
 }
 
+/** Sheet numbers in the same order as String#localeCompare, with one collator instead of one per comparison. */
+export const compareSheetNumbers = new Intl.Collator().compare;
+
 export function compareLabels(a: string, b: string) {
   return labelRank(a) - labelRank(b);
 }

@@ -2,7 +2,7 @@
 // Every query is scoped by project, so an id from another project is simply not found.
 import { Op, type WhereOptions } from "sequelize";
 import { Drawing, DrawingRevision, User, type RevisionStatus } from "../../db/models";
-import { compareLabels } from "./labels";
+import { compareLabels, compareSheetNumbers } from "./labels";
 import { DrawingError, UUID } from "./errors";
 
 const REVISION_FIELDS = [
@@ -205,7 +205,7 @@ export async function listRevisionBriefs(projectId: string): Promise<RevisionBri
       const d = sheets.get(r.drawingId)!;
       return { id: r.id, drawingId: r.drawingId, label: r.label, status: r.status, pages: r.pages, uploadedAt: r.createdAt.toISOString(), sheetNumber: d.sheetNumber, title: d.title, scaleText: d.scaleText };
     })
-    .sort((a, b) => a.sheetNumber.localeCompare(b.sheetNumber) || compareLabels(b.label, a.label));
+    .sort((a, b) => compareSheetNumbers(a.sheetNumber, b.sheetNumber) || compareLabels(b.label, a.label));
 }
 
 /** Revisions that may be issued (draft, for review, accepted), for the transmittal form. */
@@ -220,7 +220,7 @@ export async function listIssuable(projectId: string) {
       const d = (r as DrawingRevision & { drawing: Drawing }).drawing;
       return { id: r.id, label: r.label, status: r.status, drawingId: r.drawingId, sheetNumber: d.sheetNumber, title: d.title };
     })
-    .sort((a, b) => a.sheetNumber.localeCompare(b.sheetNumber) || compareLabels(a.label, b.label));
+    .sort((a, b) => compareSheetNumbers(a.sheetNumber, b.sheetNumber) || compareLabels(a.label, b.label));
 }
 
 export { toRevisionView };

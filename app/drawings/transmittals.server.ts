@@ -9,7 +9,7 @@ import { audit } from "../platform/audit.server";
 import { defineJob } from "../platform/jobs.server";
 import { appLink, sendMail } from "../platform/mailer.server";
 import { DrawingError, UUID } from "./errors";
-import { compareLabels } from "./labels";
+import { compareLabels, compareSheetNumbers } from "./labels";
 import { ISSUABLE_FROM, STATUS_LABELS, type IssueStatus } from "./status";
 
 export interface IssueInput {
@@ -136,7 +136,7 @@ async function itemsOf(transmittalId: string) {
       const r = (i as TransmittalItem & { revision: DrawingRevision & { drawing: Drawing } }).revision;
       return { revisionId: r.id, drawingId: r.drawingId, label: r.label, status: r.status, sheetNumber: r.drawing.sheetNumber, title: r.drawing.title };
     })
-    .sort((a, b) => a.sheetNumber.localeCompare(b.sheetNumber) || compareLabels(a.label, b.label));
+    .sort((a, b) => compareSheetNumbers(a.sheetNumber, b.sheetNumber) || compareLabels(a.label, b.label));
 }
 
 export interface TransmittalSummary {
