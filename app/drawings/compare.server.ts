@@ -2,11 +2,12 @@
 // the top-left corner, removed and added ink told apart, changed regions boxed and listed), a word diff of
 // the page text, and the two change descriptions. Computed on the server (see docs/decisions) and cached in
 // object storage by the two revisions' SHA-256, so a second look costs one read.
-import sharp from "sharp";
+import type { Canvas } from "@napi-rs/canvas";
+import { indexedPng } from "../platform/png-writer.server";
 import { getObjectBytes, putObject } from "../platform/storage.server";
 import { DrawingError, keys } from "./errors";
 import { objectSource, openPdf, renderPage } from "./pdf.server";
-import { diffRasters, overlayPixels, type RegionKind } from "./raster-diff";
+import { diffRasters, OVERLAY_PALETTE, overlayIndices, type RasterImage, type RegionKind } from "./raster-diff";
 import { findRevision, toRevisionView, type RevisionView } from "./register.server";
 import { diffText, pageTextInOrder, type TextDiff } from "./text-diff";
 
@@ -53,9 +54,18 @@ export interface CompareResult {
 
 const round = (n: number) => Math.round(n * 10) / 10;
 
-async function renderVisual(projectId: string, from: { objectKey: string; byteSize: number; sha256: string }, to: { objectKey: string; byteSize: number; sha256: string }, page: number): Promise<VisualCompare> {
+/**
+ * A rendering's own pixel buffer, not a copy (premultiplied RGBA, which getImageData would convert). The canvas
+ * draws lazily: this first read is where its pixels are made.
+ */
+const pixelsOf = (canvas: Canvas): RasterImage => ({ width: canvas.width, height: canvas.height, data: canvas.data(), premultiplied: true });
+
+type Source = { objectKey: string; byteSize: number; sha256: string };
+
+/** The overlay and its figures, from the cache unless `fresh` (the overlay image itself is wanted and missing). */
+async function renderVisual(projectId: string, from: Source, to: Source, page: number, fresh = false): Promise<VisualCompare> {
   const k = keys(projectId);
-  const cached = await getObjectBytes(k.compare(from.sha256, to.sha256, page, "json"));
+  const cached = fresh ? null : await getObjectBytes(k.compare(from.sha256, to.sha256, page, "json"));
   if (cached) return JSON.parse(Buffer.from(cached).toString("utf8")) as VisualCompare;
 
   const [a, b] = await Promise.all([openPdf(objectSource(from.objectKey, from.byteSize)), openPdf(objectSource(to.objectKey, to.byteSize))]);
@@ -71,18 +81,11 @@ async function renderVisual(projectId: string, from: { objectKey: string; byteSi
     const h = Math.ceil(heightPt * scale);
     const [ca, cb] = [await renderPage(pa, scale, w, h), await renderPage(pb, scale, w, h)];
     const t1 = performance.now();
-    const diff = diffRasters(
-      { width: w, height: h, data: ca.getContext("2d").getImageData(0, 0, w, h).data },
-      { width: w, height: h, data: cb.getContext("2d").getImageData(0, 0, w, h).data },
-    );
+    const diff = diffRasters(pixelsOf(ca), pixelsOf(cb));
     const t2 = performance.now();
-    // Lossless at the lowest effort: the overlay is mostly transparent, so this is small, exact and several times
-    // faster than a lossy encode through the canvas (see docs/perf/bench.md, compare).
-    const pixels = overlayPixels(diff);
-    const webp = await sharp(Buffer.from(pixels.buffer, pixels.byteOffset, pixels.byteLength), { raw: { width: w, height: h, channels: 4 } })
-      .webp({ lossless: true, effort: 0 })
-      .toBuffer();
-    await putObject(k.compare(from.sha256, to.sha256, page, "webp"), webp, { contentType: "image/webp", contentLength: webp.length });
+    // A handful of flat colours: an indexed PNG, exact, and cheap to write and to send.
+    const png = await indexedPng(overlayIndices(diff), diff.width, diff.height, OVERLAY_PALETTE);
+    await putObject(k.compare(from.sha256, to.sha256, page, "png"), png, { contentType: "image/png", contentLength: png.length });
     const t3 = performance.now();
     const result: VisualCompare = {
       page,
@@ -129,12 +132,12 @@ export async function compareRevisions(projectId: string, drawingId: string, fro
 /** The overlay image of a comparison already made (the compare call stores it). */
 export async function compareOverlay(projectId: string, drawingId: string, fromId: string, toId: string, page: number) {
   const [from, to] = await Promise.all([findRevision(projectId, drawingId, fromId), findRevision(projectId, drawingId, toId)]);
-  const key = keys(projectId).compare(from.sha256, to.sha256, page, "webp");
+  const key = keys(projectId).compare(from.sha256, to.sha256, page, "png");
   let bytes = await getObjectBytes(key);
   if (!bytes) {
-    await renderVisual(projectId, from, to, page);
+    await renderVisual(projectId, from, to, page, true);
     bytes = await getObjectBytes(key);
   }
   if (!bytes) throw new DrawingError("The comparison image is not available.", 404);
-  return new Response(Buffer.from(bytes), { headers: { "Content-Type": "image/webp", "Cache-Control": "private, max-age=86400, immutable" } });
+  return new Response(Buffer.from(bytes), { headers: { "Content-Type": "image/png", "Cache-Control": "private, max-age=86400, immutable" } });
 }

@@ -9,6 +9,6 @@ export function keys(projectId: string) {
   return {
     revision: (sha256: string) => `projects/${projectId}/revisions/${sha256}.pdf`,
     thumb: (sha256: string, page: number) => `projects/${projectId}/thumbs/${sha256}-p${page}.webp`,
-    compare: (fromSha: string, toSha: string, page: number, ext: "json" | "webp") => `projects/${projectId}/compare/${fromSha}-${toSha}-p${page}.${ext}`,
+    compare: (fromSha: string, toSha: string, page: number, ext: "json" | "png") => `projects/${projectId}/compare/${fromSha}-${toSha}-p${page}.${ext}`,
   };
 }

@@ -1,11 +1,20 @@
 // Visual comparison of two renderings of a sheet at the same scale: which ink was removed, which was added, and
-// the boxes around the changed regions. Works on raw RGBA (no image encoding) and tolerates one pixel of
-// anti-aliasing shift. Pure: the server runs it on @napi-rs/canvas pixels, tests on hand-made arrays.
+// the boxes around the changed regions; and the overlay drawn from it as palette indices (one byte a pixel, a
+// handful of colours) so it encodes as a small indexed PNG. Works on raw RGBA (no image encoding) and tolerates
+// one pixel of anti-aliasing shift. Pure: the server runs it on @napi-rs/canvas pixels, tests on hand-made arrays.
+//
+// An A1 sheet at 100 dpi is some 7.7 million pixels, so the passes are plain loops over typed arrays: white
+// paper is skipped a whole pixel (one 32-bit read) at a time, both sheets' ink sits in one byte per pixel (bit 0
+// older, bit 1 newer) and is grown by one pixel with shifts and ORs four pixels at a time. The word-wise passes
+// take the byte order of x86 and ARM as run by Node (little-endian).
 
 export interface RasterImage {
   width: number;
   height: number;
+  /** RGBA, 4 bytes a pixel, rows without padding. */
   data: Uint8ClampedArray | Uint8Array;
+  /** Colour already multiplied by alpha (a canvas's own buffer); straight RGBA when absent. */
+  premultiplied?: boolean;
 }
 
 export type RegionKind = "added" | "removed" | "changed";
@@ -38,43 +47,74 @@ export interface DiffOptions {
   cell?: number;
   /** Changed pixels a cell needs before it counts (filters speckle). */
   minPixelsPerCell?: number;
-  /** Cells of gap still joined into one region. */
+  /** Changed-cell gap still joined into one region. */
   joinCells?: number;
   maxRegions?: number;
 }
 
-function inkMask(img: RasterImage, width: number, height: number, threshold: number) {
-  const mask = new Uint8Array(width * height);
-  for (let y = 0; y < Math.min(height, img.height); y++) {
-    for (let x = 0; x < Math.min(width, img.width); x++) {
-      const i = (y * img.width + x) * 4;
-      const d = img.data;
-      const a = d[i + 3]! / 255;
-      // Transparent counts as white paper.
-      const lum = (0.299 * d[i]! + 0.587 * d[i + 1]! + 0.114 * d[i + 2]!) * a + 255 * (1 - a);
-      if (lum < threshold) mask[y * width + x] = 1;
-    }
-  }
-  return mask;
+/** An opaque white pixel read as one signed 32-bit word (Int32Array: small integers to the JIT). */
+const WHITE = -1;
+const LOW_BITS = 0x01010101;
+
+/**
+ * Working layout of the ink bytes: a row stride of whole 32-bit words with at least one empty byte at its end,
+ * and one empty row above and below, so growing by a pixel never needs a bounds check (the empty bytes are the
+ * neighbours across every edge).
+ */
+function layout(width: number, height: number) {
+  const stride = (width + 4) & ~3;
+  return { stride, words: stride >> 2, bytes: stride * (height + 2) };
 }
 
-/** The mask grown by one pixel in every direction, so a one-pixel shift is not a change. */
-function dilate(mask: Uint8Array, width: number, height: number) {
-  const out = new Uint8Array(mask.length);
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      if (!mask[y * width + x]) continue;
-      for (let dy = -1; dy <= 1; dy++) {
-        const yy = y + dy;
-        if (yy < 0 || yy >= height) continue;
-        for (let dx = -1; dx <= 1; dx++) {
-          const xx = x + dx;
-          if (xx >= 0 && xx < width) out[yy * width + xx] = 1;
-        }
-      }
+/**
+ * Sets `bit` where the image has ink: luminance (0.299 R + 0.587 G + 0.114 B, transparent counting as white
+ * paper) below the threshold. Integer arithmetic scaled by 1000 (and by 255 for partial alpha), so exact.
+ */
+function markInk(img: RasterImage, ink: Uint8Array, stride: number, width: number, height: number, threshold: number, bit: number) {
+  const d = img.data;
+  if (d.length < img.width * img.height * 4) throw new RangeError(`Expected ${img.width} × ${img.height} RGBA pixels.`);
+  const px = d.byteOffset % 4 === 0 ? new Int32Array(d.buffer, d.byteOffset, d.length >> 2) : new Int32Array(Uint8Array.from(d).buffer);
+  const w = Math.min(width, img.width);
+  const h = Math.min(height, img.height);
+  const limit = threshold * 1000;
+  for (let y = 0; y < h; y++) {
+    const src = y * img.width;
+    const dst = (y + 1) * stride;
+    for (let x = 0; x < w; x++) {
+      if (px[src + x] === WHITE) continue;
+      const i = (src + x) << 2;
+      const a = d[i + 3]!;
+      const weighted = 299 * d[i]! + 587 * d[i + 1]! + 114 * d[i + 2]!;
+      const dark =
+        a === 255 ? weighted < limit
+        : img.premultiplied ? weighted + 1000 * (255 - a) < limit
+        : weighted * a + 255000 * (255 - a) < limit * 255;
+      if (dark) ink[dst + x]! |= bit;
     }
   }
-  return out;
+}
+
+/** Row `r` of the ink bytes with each byte ORed with its left and right neighbours (four bytes a step). */
+function growAlongRow(ink: Int32Array, r: number, words: number, out: Int32Array, at: number) {
+  const first = r * words;
+  const end = Math.min(first + words, ink.length - 1);
+  for (let j = Math.max(first, 1); j < end; j++) {
+    const w = ink[j]!;
+    const prev = ink[j - 1]!;
+    const next = ink[j + 1]!;
+    out[at + j - first] = w | (w << 8) | ((prev >> 24) & 0xff) | ((w >> 8) & 0xffffff) | (next << 24);
+  }
+}
+
+/**
+ * The ink bytes' buffer, kept from one diff to the next: a fresh one would be a fresh 8 MB for an A1 sheet,
+ * and the first write to each of its pages costs more than clearing it.
+ */
+let scratch = new Uint8Array(0);
+function inkBuffer(bytes: number) {
+  if (scratch.length < bytes) scratch = new Uint8Array(bytes);
+  else scratch.fill(0, 0, bytes);
+  return scratch.subarray(0, bytes);
 }
 
 export function diffRasters(before: RasterImage, after: RasterImage, options: DiffOptions = {}): RasterDiff {
@@ -85,10 +125,17 @@ export function diffRasters(before: RasterImage, after: RasterImage, options: Di
   const maxRegions = options.maxRegions ?? 200;
   const width = Math.max(before.width, after.width);
   const height = Math.max(before.height, after.height);
-  const a = inkMask(before, width, height, threshold);
-  const b = inkMask(after, width, height, threshold);
-  const aWide = dilate(a, width, height);
-  const bWide = dilate(b, width, height);
+  const { stride, words, bytes } = layout(width, height);
+
+  // Bit 0: ink in the older image, bit 1: in the newer. Grown by one pixel in every direction (rows here,
+  // columns below), the same bits say "ink within a pixel of here", so a one-pixel shift is not a change.
+  const ink = inkBuffer(bytes);
+  markInk(before, ink, stride, width, height, threshold, 1);
+  markInk(after, ink, stride, width, height, threshold, 2);
+  const ink32 = new Int32Array(ink.buffer, 0, bytes >> 2);
+  // Rows grown along, three at a time (the row above, this one, the one below), by row number modulo 3.
+  const grown = new Int32Array(words * 3);
+  growAlongRow(ink32, 1, words, grown, words);
 
   const mask = new Uint8Array(width * height);
   const cols = Math.ceil(width / cell);
@@ -97,33 +144,55 @@ export function diffRasters(before: RasterImage, after: RasterImage, options: Di
   const cellRemoved = new Uint32Array(cols * rows);
   let addedPixels = 0;
   let removedPixels = 0;
+  const classes = new Int32Array(words);
+  const classBytes = new Uint8Array(classes.buffer);
   for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const i = y * width + x;
-      const c = Math.floor(y / cell) * cols + Math.floor(x / cell);
-      if (a[i] && !bWide[i]) {
-        mask[i] = 1;
-        removedPixels++;
-        cellRemoved[c]!++;
-      } else if (b[i] && !aWide[i]) {
-        mask[i] = 2;
-        addedPixels++;
-        cellAdded[c]!++;
-      } else if (a[i] || b[i]) {
-        mask[i] = 3;
+    const row = (y + 1) * words;
+    const [above, here, below] = [(y % 3) * words, ((y + 1) % 3) * words, ((y + 2) % 3) * words];
+    grown.fill(0, below, below + words);
+    if (y + 2 <= height) growAlongRow(ink32, y + 2, words, grown, below);
+    const cellRow = Math.floor(y / cell) * cols;
+    let any = false;
+    for (let k = 0; k < words; k++) {
+      const w = ink32[row + k]!;
+      if (w === 0) {
+        classes[k] = 0;
+        continue;
+      }
+      const near = grown[above + k]! | grown[here + k]! | grown[below + k]!;
+      const removed = w & ~(near >> 1) & LOW_BITS; // older ink with no newer ink near it
+      const added = (w >> 1) & ~near & LOW_BITS; // newer ink with no older ink near it
+      const unchanged = (w | (w >> 1)) & LOW_BITS & ~(removed | added);
+      classes[k] = removed | (added << 1) | (unchanged * 3);
+      any = true;
+      if ((removed | added) === 0) continue;
+      for (let b = 0; b < 4; b++) {
+        const v = ((removed | (added << 1)) >> (b * 8)) & 3;
+        if (!v) continue;
+        const c = cellRow + Math.floor((k * 4 + b) / cell);
+        if (v === 1) {
+          removedPixels++;
+          cellRemoved[c]!++;
+        } else {
+          addedPixels++;
+          cellAdded[c]!++;
+        }
       }
     }
+    if (any) mask.set(classBytes.subarray(0, width), y * width);
   }
 
   // Connected components over changed cells, joining across small gaps.
+  const changed = new Uint8Array(cols * rows);
+  for (let c = 0; c < changed.length; c++) changed[c] = cellAdded[c]! + cellRemoved[c]! >= minPixels ? 1 : 0;
   const label = new Int32Array(cols * rows).fill(-1);
   const regions: Region[] = [];
-  const changed = (c: number) => cellAdded[c]! + cellRemoved[c]! >= minPixels;
+  const stack: number[] = [];
   for (let start = 0; start < cols * rows; start++) {
-    if (label[start] !== -1 || !changed(start)) continue;
+    if (label[start] !== -1 || !changed[start]) continue;
     const id = regions.length;
     let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity, added = 0, removed = 0;
-    const stack = [start];
+    stack.push(start);
     label[start] = id;
     while (stack.length) {
       const c = stack.pop()!;
@@ -131,12 +200,10 @@ export function diffRasters(before: RasterImage, after: RasterImage, options: Di
       minX = Math.min(minX, cx); maxX = Math.max(maxX, cx); minY = Math.min(minY, cy); maxY = Math.max(maxY, cy);
       added += cellAdded[c]!;
       removed += cellRemoved[c]!;
-      for (let dy = -join; dy <= join; dy++) {
-        for (let dx = -join; dx <= join; dx++) {
-          const nx = cx + dx, ny = cy + dy;
-          if (nx < 0 || ny < 0 || nx >= cols || ny >= rows) continue;
+      for (let ny = Math.max(0, cy - join); ny <= Math.min(rows - 1, cy + join); ny++) {
+        for (let nx = Math.max(0, cx - join); nx <= Math.min(cols - 1, cx + join); nx++) {
           const n = ny * cols + nx;
-          if (label[n] === -1 && changed(n)) {
+          if (label[n] === -1 && changed[n]) {
             label[n] = id;
             stack.push(n);
           }
@@ -160,30 +227,55 @@ export function diffRasters(before: RasterImage, after: RasterImage, options: Di
   return { width, height, addedPixels, removedPixels, regions: kept, mask };
 }
 
-/** Colours of our own for the overlay (RGB). Removed ink is also drawn broken (dashed), added ink solid. */
-export const OVERLAY_COLOURS = {
-  removed: [178, 86, 34] as const, // copper
-  added: [52, 84, 122] as const, // blue-slate
-  unchanged: [196, 190, 180] as const,
-};
+/**
+ * The overlay's colours, our own (RGB), by palette index: paper, removed ink (copper), added ink (blue-slate),
+ * unchanged ink (faint), and the gaps of the broken line removed ink is drawn in (added ink is solid).
+ */
+export const OVERLAY_PALETTE = [
+  [255, 255, 255],
+  [178, 86, 34],
+  [52, 84, 122],
+  [196, 190, 180],
+  [240, 214, 196],
+] as const satisfies readonly (readonly [number, number, number])[];
 
-/** RGBA pixels of the overlay: faint unchanged ink, removed ink copper in a diagonal dash, added ink blue-slate. */
-export function overlayPixels(diff: RasterDiff): Uint8ClampedArray {
-  const { width, height, mask } = diff;
-  const out = new Uint8ClampedArray(width * height * 4);
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const i = y * width + x;
-      const m = mask[i]!;
-      let rgb: readonly number[] = [255, 255, 255];
-      if (m === 3) rgb = OVERLAY_COLOURS.unchanged;
-      else if (m === 2) rgb = OVERLAY_COLOURS.added;
-      else if (m === 1) rgb = (x + y) % 6 < 4 ? OVERLAY_COLOURS.removed : [240, 214, 196];
-      out[i * 4] = rgb[0]!;
-      out[i * 4 + 1] = rgb[1]!;
-      out[i * 4 + 2] = rgb[2]!;
-      out[i * 4 + 3] = 255;
+const REMOVED_GAP = 4;
+
+/**
+ * The overlay as palette indices into OVERLAY_PALETTE, one byte a pixel: the mask's own codes, with removed ink
+ * broken into a diagonal dash (two pixels in six are the gap colour).
+ */
+export function overlayIndices(diff: RasterDiff): Uint8Array {
+  const { width, mask } = diff;
+  const out = mask.slice();
+  const whole = out.length >> 2;
+  const words = new Int32Array(out.buffer, 0, whole);
+  for (let k = 0; k <= whole; k++) {
+    // Removed is code 1: bit 0 without bit 1. Whole words without it are passed over.
+    if (k < whole) {
+      const w = words[k]!;
+      if ((w & ~(w >> 1) & LOW_BITS) === 0) continue;
     }
+    for (let i = k * 4; i < Math.min(k * 4 + 4, out.length); i++) {
+      if (out[i] !== 1) continue;
+      const x = i % width;
+      const y = (i - x) / width;
+      if ((x + y) % 6 >= 4) out[i] = REMOVED_GAP;
+    }
+  }
+  return out;
+}
+
+/** RGBA pixels of the overlay (the palette looked up), for checks and previews. */
+export function overlayPixels(diff: RasterDiff): Uint8ClampedArray {
+  const indices = overlayIndices(diff);
+  const out = new Uint8ClampedArray(indices.length * 4);
+  for (let i = 0; i < indices.length; i++) {
+    const rgb = OVERLAY_PALETTE[indices[i]!]!;
+    out[i * 4] = rgb[0];
+    out[i * 4 + 1] = rgb[1];
+    out[i * 4 + 2] = rgb[2];
+    out[i * 4 + 3] = 255;
   }
   return out;
 }

@@ -6,6 +6,7 @@ import { readFileSync } from "node:fs";
 import { createHash } from "node:crypto";
 import { GetObjectCommand, PutObjectCommand } from "@aws-sdk/client-s3";
 import { PDFDocument, PDFName } from "pdf-lib";
+import sharp from "sharp";
 import { beforeAll, describe, expect, it } from "vitest";
 import { AuditEvent, Drawing, DrawingRevision, TransmittalRecipient } from "../../db/models";
 import { s3 } from "../../app/platform/storage.server";
@@ -383,7 +384,27 @@ describe("compare", () => {
     expect(html).toContain("DN28");
     const img = await as.site_plumber.get(`/projects/${projectId()}/drawings/${drawingId}/overlay?from=${fromId}&to=${toId}&page=1`);
     expect(img.status).toBe(200);
-    expect(img.headers.get("content-type")).toBe("image/webp");
+    expect(img.headers.get("content-type")).toBe("image/png");
+
+    // The picture itself: the size the figures speak of, the added run in the added colour, the untouched box faint.
+    const { body } = await as.engineer.json(`/api/projects/${projectId()}/drawings/${drawingId}/compare?from=${fromId}&to=${toId}`);
+    const { widthPx, heightPx, scale } = body.visual;
+    const { data, info } = await sharp(Buffer.from(await img.arrayBuffer())).removeAlpha().raw().toBuffer({ resolveWithObject: true });
+    expect([info.width, info.height]).toEqual([widthPx, heightPx]);
+    const h = A1_LANDSCAPE[1];
+    const coloursAround = (xPt: number, yPt: number) => {
+      const found = new Set<string>();
+      const [cx, cy] = [Math.round(xPt * scale), Math.round(yPt * scale)];
+      for (let y = cy - 6; y <= cy + 6; y++) for (let x = cx - 6; x <= cx + 6; x++) found.add([...data.subarray((y * widthPx + x) * 3, (y * widthPx + x) * 3 + 3)].join());
+      return found;
+    };
+    const [paper, removed, added, unchanged] = ["255,255,255", "178,86,34", "52,84,122", "196,190,180"];
+    const newRun = coloursAround(1500, h - 900 - 75); // left side of the added box, halfway up
+    expect(newRun).toContain(added);
+    expect(newRun).not.toContain(removed);
+    const oldBox = coloursAround(300, h - 300 - 100); // left side of the box in both revisions
+    expect([...oldBox].sort()).toEqual([paper, unchanged].sort());
+    expect(coloursAround(1000, 200)).toEqual(new Set([paper]));
   });
 
   it("refuses to compare a revision with itself, or with one from another sheet", async () => {

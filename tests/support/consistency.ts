@@ -79,7 +79,7 @@ export async function checkConsistency(options: ConsistencyOptions = {}): Promis
   const derived = (key: string) => {
     const thumb = key.match(/^projects\/([0-9a-f-]{36})\/thumbs\/([0-9a-f]{64})-p\d+\.webp$/);
     if (thumb) return revisionShas.get(thumb[1]!)?.has(thumb[2]!) ?? false;
-    const compare = key.match(/^projects\/([0-9a-f-]{36})\/compare\/([0-9a-f]{64})-([0-9a-f]{64})-p\d+\.(json|webp)$/);
+    const compare = key.match(/^projects\/([0-9a-f-]{36})\/compare\/([0-9a-f]{64})-([0-9a-f]{64})-p\d+\.(json|png)$/);
     if (compare) {
       const shas = revisionShas.get(compare[1]!);
       return !!shas?.has(compare[2]!) && shas.has(compare[3]!);
