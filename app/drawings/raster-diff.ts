@@ -148,7 +148,9 @@ export function diffRasters(before: RasterImage, after: RasterImage, options: Di
   const classBytes = new Uint8Array(classes.buffer);
   for (let y = 0; y < height; y++) {
     const row = (y + 1) * words;
-    const [above, here, below] = [(y % 3) * words, ((y + 1) % 3) * words, ((y + 2) % 3) * words];
+    const above = (y % 3) * words;
+    const here = ((y + 1) % 3) * words;
+    const below = ((y + 2) % 3) * words;
     grown.fill(0, below, below + words);
     if (y + 2 <= height) growAlongRow(ink32, y + 2, words, grown, below);
     const cellRow = Math.floor(y / cell) * cols;
