@@ -20,8 +20,27 @@ const assets = {
 type PdfJs = typeof import("pdfjs-dist/legacy/build/pdf.mjs");
 let pdfjsPromise: Promise<PdfJs> | undefined;
 function pdfjs() {
-  pdfjsPromise ??= import("pdfjs-dist/legacy/build/pdf.mjs");
+  pdfjsPromise ??= loadPdfjs();
   return pdfjsPromise;
+}
+
+/**
+ * pdf.js and its worker (which runs in this thread), loaded once with stack traces left unmapped meanwhile. The
+ * server maps every stack trace through source maps, and pdf.js reads a stack while it loads: that alone would
+ * parse its 7 MB of source maps into some 130 MB held for the life of the process, and take seconds.
+ */
+async function loadPdfjs(): Promise<PdfJs> {
+  const stacks = Error as { prepareStackTrace?: unknown };
+  const mapStack = stacks.prepareStackTrace;
+  stacks.prepareStackTrace = undefined;
+  try {
+    const [lib, worker] = await Promise.all([import("pdfjs-dist/legacy/build/pdf.mjs"), import("pdfjs-dist/legacy/build/pdf.worker.mjs")]);
+    // Found here, the worker is not imported again by pdf.js itself.
+    (globalThis as { pdfjsWorker?: unknown }).pdfjsWorker = worker;
+    return lib;
+  } finally {
+    stacks.prepareStackTrace = mapStack;
+  }
 }
 
 /** Where a PDF's bytes come from: a length and a way to read any range of them. */
