@@ -264,13 +264,7 @@ export default function MarkupCanvas(props: CanvasProps) {
     o.y = Math.round(Math.max(0, Math.min(h - height, top - MARGIN_PX)));
     if (stageBox.current) stageBox.current.style.transform = `translate(${o.x}px, ${o.y}px)`;
     // Drawn now rather than on the next frame, so the stage's new place and its drawing show together.
-    // A layer with nothing on it keeps its blank canvas: repainting it would only make the compositor copy it again.
-    for (const layer of stage.current?.getLayers() ?? []) {
-      layer.position({ x: -o.x, y: -o.y });
-      if (!layer.getChildren((n) => n.className !== "Transformer" || (n as Konva.Transformer).nodes().length > 0).length) continue;
-      if (again) layer.batchDraw();
-      else layer.draw();
-    }
+    for (const layer of stage.current?.getLayers() ?? []) { layer.position({ x: -o.x, y: -o.y }); if (again) layer.batchDraw(); else layer.draw(); }
   }, [w, h, stageSize]);
   useLayoutEffect(() => place(true), [place, page]);
   useEffect(() => {
