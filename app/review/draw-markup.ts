@@ -1,6 +1,6 @@
 // Draws a markup onto a 2D canvas context in page points (browser only: Path2D). The sheet canvas draws every
 // markup that is not being edited through this in one pass, which keeps thousands of markups cheap to show.
-import { hasLabel, LABEL_MAX_LINES, LABEL_SIZE_PT, labelAnchor, markupPath, type MarkupShape } from "./markups";
+import { markupPath, type MarkupShape } from "./markups";
 
 const paths = new WeakMap<MarkupShape, Path2D>();
 
@@ -30,11 +30,11 @@ export function drawMarkup(ctx: CanvasRenderingContext2D, m: MarkupShape) {
     if (m.kind === "measure") ctx.arc(p[2]!, p[3]!, Math.max(2, m.strokeWidthPt * 1.5), 0, Math.PI * 2);
     ctx.fill();
   }
-  if (m.text && hasLabel(m)) {
-    const size = LABEL_SIZE_PT;
+  if (m.text && (m.kind === "callout" || m.kind === "measure" || m.kind === "polyline")) {
+    const size = 11;
     ctx.font = `600 ${size}px "Inter Tight", sans-serif`;
-    const [tx, ty] = labelAnchor(m);
-    const lines = m.text.split("\n").slice(0, LABEL_MAX_LINES);
+    const [tx, ty] = m.kind === "callout" ? [p[2]!, p[3]!] : m.kind === "measure" ? [(p[0]! + p[2]!) / 2, (p[1]! + p[3]!) / 2] : [p[p.length - 2]!, p[p.length - 1]!];
+    const lines = m.text.split("\n").slice(0, 6);
     const w = Math.max(...lines.map((l) => ctx.measureText(l).width)) + 8;
     const h = lines.length * (size + 3) + 5;
     ctx.globalAlpha = 1;

@@ -2,17 +2,14 @@
 // points (layer scale = zoom). Engineers draw, select, move, resize and remove markups; everyone else sees them
 // read-only, and the requester places numbered pins while the request is editable. Every change is saved
 // through the API at once (optimistic); a markup someone else changed first is reloaded with a notice.
-// The stage covers only the part of the page in view plus a margin, not the whole zoomed page: a canvas the size
-// of an A1 sheet at 200 % costs the compositor every scrolled frame. It moves with the page while that part stays
-// inside it and is placed again (drawing only the markups there) when a scroll leaves it.
 import type Konva from "konva";
-import { useCallback, useEffect, useLayoutEffect, useMemo, useReducer, useRef, useState } from "react";
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from "react";
 import { Circle, Group, Layer, Shape, Stage, Text, Transformer } from "react-konva";
 import { Document, Page, pdfjs } from "react-pdf";
 import workerUrl from "pdfjs-dist/build/pdf.worker.min.mjs?url";
 import type { PinView } from "../requests/pins.server";
 import { drawMarkup } from "./draw-markup";
-import { clampToPage, emptyState, hitTest, inkBox, nextEffect, reduce, thin, toolForKey, TOOLS, transformPoints, type Command, type Item, type Tool } from "./markup-state";
+import { clampToPage, emptyState, hitTest, nextEffect, reduce, thin, toolForKey, TOOLS, transformPoints, type Command, type Item, type Tool } from "./markup-state";
 import type { MarkupShape } from "./markups";
 import type { MarkupView } from "./markups.server";
 import { calibrate, formatMetres, labelMetres, lengthLabel, metresPerPtAtScale, parseScale, pathLengthPt } from "./measure";
@@ -31,8 +28,6 @@ export const COLOURS = [
 ];
 const WEIGHTS = [0.75, 1.5, 3];
 const ZOOMS = [0.5, 0.75, 1, 1.5, 2, 3];
-/** Screen pixels the stage reaches past each edge of the view, so most scroll steps need no redraw. */
-const MARGIN_PX = 256;
 
 export interface CanvasProps {
   apiBase: string;
@@ -164,8 +159,7 @@ export default function MarkupCanvas(props: CanvasProps) {
 
   const pointAt = (e: Konva.KonvaEventObject<PointerEvent | MouseEvent>) => {
     const pos = e.target.getStage()!.getPointerPosition()!;
-    const o = view.current;
-    return [Math.round(((pos.x + o.x) / zoom) * 100) / 100, Math.round(((pos.y + o.y) / zoom) * 100) / 100] as [number, number];
+    return [Math.round((pos.x / zoom) * 100) / 100, Math.round((pos.y / zoom) * 100) / 100] as [number, number];
   };
 
   const onDown = async (e: Konva.KonvaEventObject<PointerEvent>) => {
@@ -234,48 +228,12 @@ export default function MarkupCanvas(props: CanvasProps) {
     run({ op: "update", key: sel.key, before: sel.shape, after: { ...sel.shape, points, ...(text ? { text } : {}) } });
   };
 
-  const onPage = useMemo(() => state.items.filter((i) => i.page === page && i.key !== selected).map((it) => ({ shape: it.shape, box: inkBox(it.shape) })), [state.items, page, selected]);
+  const onPage = useMemo(() => state.items.filter((i) => i.page === page && i.key !== selected), [state.items, page, selected]);
   const drawn = useRef(false);
   const wrapper = useRef<HTMLDivElement>(null);
   const draftShape: MarkupShape | null = draft && draft.length >= 4 ? { kind: tool === "calibrate" ? "measure" : ((TOOLS.find((t) => t.tool === tool) ? tool : "line") as MarkupShape["kind"]), points: draft, color: colour, strokeWidthPt: weight, text: tool === "polyline" || tool === "measure" ? lengthLabel(draft, scale?.metresPerPt ?? null) : undefined } : null;
   const w = pageSize.widthPt * zoom;
   const h = pageSize.heightPt * zoom;
-
-  // Where the stage sits on the zoomed page (screen px): kept in a ref and applied to the Konva nodes directly, so
-  // a scroll does not render the component again.
-  const sheet = useRef<HTMLDivElement>(null);
-  const stageBox = useRef<HTMLDivElement>(null);
-  const stage = useRef<Konva.Stage>(null);
-  const view = useRef({ x: 0, y: 0 });
-  const [stageSize, setStageSize] = useState({ width: 0, height: 0 });
-  const place = useCallback((again: boolean) => {
-    const scroller = wrapper.current;
-    const paper = sheet.current;
-    if (!scroller || !paper) return;
-    const width = Math.ceil(Math.min(w, scroller.clientWidth + 2 * MARGIN_PX));
-    const height = Math.ceil(Math.min(h, scroller.clientHeight + 2 * MARGIN_PX));
-    if (width !== stageSize.width || height !== stageSize.height) { setStageSize({ width, height }); return; }
-    const left = scroller.scrollLeft - paper.offsetLeft;
-    const top = scroller.scrollTop - paper.offsetTop;
-    const o = view.current;
-    const inside = left >= o.x && top >= o.y && left + scroller.clientWidth <= o.x + width && top + scroller.clientHeight <= o.y + height;
-    if (inside && !again) return;
-    o.x = Math.round(Math.max(0, Math.min(w - width, left - MARGIN_PX)));
-    o.y = Math.round(Math.max(0, Math.min(h - height, top - MARGIN_PX)));
-    if (stageBox.current) stageBox.current.style.transform = `translate(${o.x}px, ${o.y}px)`;
-    // Drawn now rather than on the next frame, so the stage's new place and its drawing show together.
-    for (const layer of stage.current?.getLayers() ?? []) { layer.position({ x: -o.x, y: -o.y }); if (again) layer.batchDraw(); else layer.draw(); }
-  }, [w, h, stageSize]);
-  useLayoutEffect(() => place(true), [place, page]);
-  useEffect(() => {
-    const scroller = wrapper.current;
-    if (!scroller) return;
-    const onScroll = () => place(false);
-    const resized = new ResizeObserver(() => place(true));
-    scroller.addEventListener("scroll", onScroll, { passive: true });
-    resized.observe(scroller);
-    return () => { scroller.removeEventListener("scroll", onScroll); resized.disconnect(); };
-  }, [place]);
   const selMetres = sel && (sel.shape.kind === "measure" || sel.shape.kind === "polyline") ? labelMetres(sel.shape.text) : null;
 
   return (
@@ -317,20 +275,18 @@ export default function MarkupCanvas(props: CanvasProps) {
         {notice ? <p role="status" data-testid="canvas-notice" className={`text-sm ${notice.tone === "fail" ? "font-semibold text-fail" : "text-ok"}`}>{notice.tone === "fail" ? "⚠ " : "✓ "}{notice.text}</p> : null}
         {!canMarkUp ? <p className="text-xs text-ink-soft">{canPin ? "Click the sheet to place a numbered pin." : "Read-only: markups are drawn by the engineer."}</p> : null}
         <div ref={wrapper} data-testid="sheet-scroller" role="region" aria-label="Sheet" tabIndex={0} className="relative max-h-[75vh] overflow-auto rounded-md border border-rule bg-paper-deep p-3">
-          <div ref={sheet} className="relative bg-white shadow" style={{ width: w, height: h }}>
+          <div className="relative bg-white shadow" style={{ width: w, height: h }}>
             <Document file={revision.fileUrl} loading={<p className="p-6 text-ink-soft">Opening the sheet…</p>} error={<p role="alert" className="p-6 font-semibold text-fail">The sheet could not be opened. Reload the page to try again.</p>}>
               <Page pageNumber={page} width={w} renderAnnotationLayer={false} renderTextLayer={false} loading="" />
             </Document>
-            <div ref={stageBox} className="absolute left-0 top-0" data-testid="markup-stage" style={{ width: stageSize.width, height: stageSize.height, transform: `translate(${view.current.x}px, ${view.current.y}px)` }}>
-              {stageSize.width ? <Stage ref={stage} width={stageSize.width} height={stageSize.height} onPointerDown={onDown} onPointerMove={onMove} onPointerUp={onUp} onDblClick={() => tool === "polyline" && finishPolyline()}
+            <div className="absolute inset-0" data-testid="markup-stage">
+              <Stage width={w} height={h} onPointerDown={onDown} onPointerMove={onMove} onPointerUp={onUp} onDblClick={() => tool === "polyline" && finishPolyline()}
                 style={{ cursor: tool === "select" ? "default" : "crosshair" }}>
-                <Layer x={-view.current.x} y={-view.current.y} scaleX={zoom} scaleY={zoom} listening={false}>
+                <Layer scaleX={zoom} scaleY={zoom} listening={false}>
                   <Shape listening={false} perfectDrawEnabled={false} sceneFunc={(ctx) => {
                     const c = (ctx as unknown as { _context: CanvasRenderingContext2D })._context;
                     const t0 = performance.now();
-                    const o = view.current;
-                    const [x1, y1, x2, y2] = [o.x / zoom, o.y / zoom, (o.x + stageSize.width) / zoom, (o.y + stageSize.height) / zoom];
-                    for (const { shape, box } of onPage) if (box.x2 >= x1 && box.x1 <= x2 && box.y2 >= y1 && box.y1 <= y2) drawMarkup(c, shape);
+                    for (const it of onPage) drawMarkup(c, it.shape);
                     // For the benchmark: when the layer first drew, and how long drawing it took.
                     if (!drawn.current && wrapper.current) {
                       drawn.current = true;
@@ -340,7 +296,7 @@ export default function MarkupCanvas(props: CanvasProps) {
                     }
                   }} />
                 </Layer>
-                <Layer x={-view.current.x} y={-view.current.y} scaleX={zoom} scaleY={zoom}>
+                <Layer scaleX={zoom} scaleY={zoom}>
                   {sel && sel.page === page ? (
                     <Group ref={group} name="selected" draggable={canMarkUp} onDragEnd={onTransformed} onTransformEnd={onTransformed}>
                       <Shape perfectDrawEnabled={false} sceneFunc={(ctx) => drawMarkup((ctx as unknown as { _context: CanvasRenderingContext2D })._context, sel.shape)}
@@ -356,7 +312,7 @@ export default function MarkupCanvas(props: CanvasProps) {
                     </Group>
                   ))}
                 </Layer>
-              </Stage> : null}
+              </Stage>
             </div>
             {ask ? (
               <form className="absolute z-20 flex gap-1 rounded border border-rule bg-sheet p-2 shadow" style={{ left: Math.min(ask.points[2]! * zoom, w - 260), top: Math.min(ask.points[3]! * zoom, h - 50) }}

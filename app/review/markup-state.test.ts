@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import type { MarkupShape } from "./markups";
-import { clampToPage, emptyState, hitTest, inkBox, nextEffect, reduce, thin, toolForKey, transformPoints, type Item } from "./markup-state";
+import { clampToPage, emptyState, hitTest, nextEffect, reduce, thin, toolForKey, transformPoints, type Item } from "./markup-state";
 
 const me = { id: "u1", name: "Engineer" };
 const shape = (kind: MarkupShape["kind"], points: number[]): MarkupShape => ({ kind, points, color: "#9a4a20", strokeWidthPt: 2 });
@@ -58,20 +58,5 @@ describe("canvas geometry", () => {
   it("maps the shortcut keys to tools", () => {
     expect(["v", "p", "l", "a", "r", "e", "c", "t", "h", "m"].map(toolForKey)).toEqual(["select", "freehand", "line", "arrow", "rectangle", "ellipse", "cloud", "callout", "highlighter", "measure"]);
     expect(toolForKey("x")).toBeNull();
-  });
-});
-
-describe("ink box", () => {
-  it("holds the stroke, an arrow head and a label beside the shape", () => {
-    const line = inkBox(shape("line", [100, 100, 200, 150]));
-    expect(line.x1).toBeLessThan(100 - 2);
-    expect(line.y2).toBeGreaterThan(150 + 2);
-    const heavy = inkBox({ ...shape("arrow", [100, 100, 200, 100]), strokeWidthPt: 10 });
-    expect(heavy.x2).toBeGreaterThanOrEqual(200 + 40);
-    const callout = inkBox({ ...shape("callout", [100, 100, 200, 300]), text: "Reroute along the parapet\nsecond line" });
-    expect(callout.x2).toBeGreaterThan(200 + 4 + 25 * 6);
-    expect(callout.y1).toBeLessThan(300 - 14);
-    expect(callout.y2).toBeGreaterThan(300 + 14);
-    expect(inkBox({ ...shape("line", [100, 100, 200, 300]), text: "ignored" })).toEqual(inkBox(shape("line", [100, 100, 200, 300])));
   });
 });

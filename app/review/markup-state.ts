@@ -1,7 +1,7 @@
 // The markup canvas's state, without a canvas: the tools and their keys, the markups on screen with the history
 // of changes (undo/redo as commands, each one also a write to the server), hit-testing in page points, and
 // applying a drag or resize to a shape's points. Pure, so it is unit-tested.
-import { hasLabel, LABEL_MAX_LINES, LABEL_SIZE_PT, labelAnchor, type MarkupKind, type MarkupShape } from "./markups";
+import type { MarkupKind, MarkupShape } from "./markups";
 
 export type Tool = "select" | "pin" | Exclude<MarkupKind, "measure"> | "measure" | "calibrate";
 
@@ -109,26 +109,6 @@ export function bbox(points: number[]) {
     y2 = Math.max(y2, points[i + 1]!);
   }
   return { x1, y1, x2, y2 };
-}
-
-/**
- * A box (page points) holding all the ink drawMarkup lays down for a shape: the stroke, an arrow head, a cloud's
- * scallops, end dots and the label (its width taken as a full em per character, never less than it draws). The
- * sheet draws only the markups whose box meets the part of the page on screen.
- */
-export function inkBox(m: MarkupShape) {
-  const b = bbox(m.points);
-  const pad = Math.max(8, 4 * m.strokeWidthPt) + m.strokeWidthPt;
-  const box = { x1: b.x1 - pad, y1: b.y1 - pad, x2: b.x2 + pad, y2: b.y2 + pad };
-  if (m.text && hasLabel(m)) {
-    const [tx, ty] = labelAnchor(m);
-    const lines = m.text.split("\n").slice(0, LABEL_MAX_LINES);
-    const half = (lines.length * (LABEL_SIZE_PT + 3) + 5) / 2 + 1;
-    box.x2 = Math.max(box.x2, tx + 4 + Math.max(...lines.map((l) => l.length)) * LABEL_SIZE_PT + 9);
-    box.y1 = Math.min(box.y1, ty - half);
-    box.y2 = Math.max(box.y2, ty + half);
-  }
-  return box;
 }
 
 function segmentDistance(px: number, py: number, ax: number, ay: number, bx: number, by: number) {

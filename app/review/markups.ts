@@ -99,18 +99,3 @@ export function markupPath(m: MarkupShape): string {
       return pairs();
   }
 }
-
-/** Label type size and the most lines a label shows (screen and print). */
-export const LABEL_SIZE_PT = 11;
-export const LABEL_MAX_LINES = 6;
-
-/** Where a shape's label starts: a callout's end, a measure's middle, a pipe run's last point. */
-export function labelAnchor(m: Pick<MarkupShape, "kind" | "points">): [number, number] {
-  const p = m.points;
-  if (m.kind === "callout") return [p[2]!, p[3]!];
-  if (m.kind === "measure") return [(p[0]! + p[2]!) / 2, (p[1]! + p[3]!) / 2];
-  return [p[p.length - 2]!, p[p.length - 1]!];
-}
-
-/** Whether drawMarkup writes the shape's text beside it. */
-export const hasLabel = (m: Pick<MarkupShape, "kind" | "text">) => Boolean(m.text) && (m.kind === "callout" || m.kind === "measure" || m.kind === "polyline");

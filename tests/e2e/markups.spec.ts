@@ -1,8 +1,7 @@
 // Marking up a sheet in Chromium: the engineer draws a revision cloud, a text callout and a measurement after
-// calibrating the scale; a reload shows them from the server; the plumber sees the same markups read-only. On a
-// large sheet zoomed in and scrolled, markups far from the corner are drawn, picked and added where they are.
-import { DeviationRequest, Markup } from "../../db/models";
-import { A1_LANDSCAPE, makeSheet, upload } from "../support/drawings";
+// calibrating the scale; a reload shows them from the server; the plumber sees the same markups read-only.
+import { DeviationRequest } from "../../db/models";
+import { makeSheet, upload } from "../support/drawings";
 import { makeProjectTeam, PASSWORD } from "../support/factory";
 import { Client } from "../support/http";
 import { api, CONTENT } from "../support/requests";
@@ -78,63 +77,4 @@ test("an engineer marks up the sheet and the plumber sees it read-only", async (
   await expect(plumber.getByRole("toolbar", { name: "Markup tools" })).toHaveCount(0);
   await other.close();
   expect(problems).toEqual([]);
-});
-
-test("zoomed in and scrolled far across a large sheet, markups are drawn, picked and added where they are", async ({ page }) => {
-  const team = await makeProjectTeam();
-  const as = { architect: new Client(), site_plumber: new Client(), engineer: new Client() };
-  for (const who of Object.keys(as) as (keyof typeof as)[]) await as[who].signIn(team.users[who].email, PASSWORD);
-  const up = await upload(as.architect, team.project.id, await makeSheet({ size: A1_LANDSCAPE, tag: "e2e far markups" }), { sheetNumber: "P-102", title: "Basement drainage", scaleText: "1:50" });
-  expect(up.status).toBe(201);
-  const revisionId = up.body.stored[0].revisionId as string;
-  const id = (await api(as.site_plumber, "POST", `/api/projects/${team.project.id}/requests`, CONTENT)).body.request.id as string;
-  for (const [who, action] of [["site_plumber", "submit"], ["engineer", "start_review"]] as const) {
-    const current = (await DeviationRequest.findByPk(id))!;
-    expect((await api(as[who], "POST", `/api/projects/${team.project.id}/requests/${id}/transitions`, { action, lockVersion: current.lockVersion })).status).toBe(200);
-  }
-  const far = { kind: "rectangle" as const, points: [1800, 1200, 1900, 1260], color: "#1f2a33", strokeWidthPt: 3 };
-  await Markup.create({ projectId: team.project.id, requestId: id, revisionId, page: 1, kind: far.kind, shape: far, authorId: team.users.engineer.id });
-
-  await signIn(page, team.users.engineer.email, PASSWORD);
-  await page.goto(`/projects/${team.project.id}/requests/${id}/sheet`);
-  const items = page.getByTestId("markup-item");
-  await expect(items).toHaveCount(1);
-  await page.getByLabel("Zoom").selectOption("2");
-  await items.first().click(); // scrolls the sheet to the markup and selects it
-  await page.keyboard.press("Escape");
-  await expect(page.getByRole("button", { name: "Delete selected" })).toBeDisabled();
-
-  // Screen position of a page point, and whether the markup layer has ink there.
-  const at = (xPt: number, yPt: number) =>
-    page.evaluate(([x, y]) => {
-      const sheet = document.querySelector<HTMLElement>("[data-testid=markup-stage]")!.parentElement!.getBoundingClientRect();
-      return [sheet.left + x * 2, sheet.top + y * 2] as [number, number];
-    }, [xPt, yPt]);
-  const inked = (xy: [number, number]) =>
-    page.evaluate(([x, y]) => {
-      const canvas = document.querySelector<HTMLCanvasElement>("[data-testid=markup-stage] canvas")!;
-      const r = canvas.getBoundingClientRect();
-      const k = canvas.width / r.width;
-      const data = canvas.getContext("2d")!.getImageData(Math.round((x - r.left) * k) - 2, Math.round((y - r.top) * k) - 2, 5, 5).data;
-      return data.some((v, i) => i % 4 === 3 && v > 0);
-    }, xy);
-  const edge = await at(1800, 1230);
-  await expect.poll(() => inked(edge)).toBe(true);
-  expect(await inked(await at(1850, 1230))).toBe(false);
-
-  await page.mouse.click(...edge);
-  await expect(page.getByRole("button", { name: "Delete selected" })).toBeEnabled();
-  await page.keyboard.press("Escape");
-
-  await page.keyboard.press("r");
-  const [from, to] = [await at(1920, 1280), await at(1980, 1320)];
-  await page.mouse.move(...from);
-  await page.mouse.down();
-  await page.mouse.move((from[0] + to[0]) / 2, (from[1] + to[1]) / 2, { steps: 4 });
-  await page.mouse.move(...to, { steps: 4 });
-  await page.mouse.up();
-  await expect(items).toHaveCount(2);
-  await expect(page.getByText("Markup saved.")).toBeVisible();
-  const points = (await Markup.findAll({ where: { requestId: id } })).map((m) => m.shape.points).find((p) => p[0] !== 1800)!;
-  [1920, 1280, 1980, 1320].forEach((v, i) => expect(Math.abs(points[i]! - v)).toBeLessThan(1));
 });
