@@ -79,10 +79,21 @@ async function writeBigPdf(file: string, bytes: number) {
   await finished(out);
 }
 
+const rssKb = (pid: number) => Number(readFileSync(`/proc/${pid}/status`, "utf8").match(/VmRSS:\s+(\d+)/)![1]);
+
+/** The app's resident memory in MB: the launcher and every server process it started (storage/serve.mjs). */
 function rssMb(pid: number) {
   try {
-    const status = readFileSync(`/proc/${pid}/status`, "utf8");
-    return Math.round(Number(status.match(/VmRSS:\s+(\d+)/)![1]) / 1024);
+    const children = readFileSync(`/proc/${pid}/task/${pid}/children`, "utf8").trim().split(/\s+/).filter(Boolean).map(Number);
+    let kb = rssKb(pid);
+    for (const child of children) {
+      try {
+        kb += rssKb(child);
+      } catch {
+        // Gone since it was listed.
+      }
+    }
+    return Math.round(kb / 1024);
   } catch {
     return NaN;
   }
