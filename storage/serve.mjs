@@ -21,7 +21,12 @@ if (cluster.isPrimary && processes > 1) {
   const startedAt = new Map();
   const fork = () => startedAt.set(cluster.fork().id, Date.now());
   let stopping = false;
-  for (let i = 0; i < processes; i++) fork();
+  // The first process starts alone and the others once it listens: started together they would share the cores
+  // while loading the app, and the first answer would come later.
+  fork();
+  cluster.once("listening", () => {
+    for (let i = 1; i < processes; i++) fork();
+  });
   cluster.on("exit", (worker, code, signal) => {
     const lived = Date.now() - (startedAt.get(worker.id) ?? 0);
     startedAt.delete(worker.id);
