@@ -8,12 +8,6 @@ export { UUID } from "../platform/failures.server";
 export function keys(projectId: string) {
   return {
     revision: (sha256: string) => `projects/${projectId}/revisions/${sha256}.pdf`,
-    /**
-     * Where an upload is stored while it arrives, before its content (and so its revision key) is known. Each under a
-     * prefix of its own: the local S3 fake deletes a folder left empty by a delete, and a write into that folder at
-     * the same moment crashed it (uploads come and go under incoming/ all the time).
-     */
-    incoming: (uploadId: string) => `projects/${projectId}/incoming/${uploadId}/upload.pdf`,
     thumb: (sha256: string, page: number) => `projects/${projectId}/thumbs/${sha256}-p${page}.webp`,
     compare: (fromSha: string, toSha: string, page: number, ext: "json" | "png") => `projects/${projectId}/compare/${fromSha}-${toSha}-p${page}.${ext}`,
   };

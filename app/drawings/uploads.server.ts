@@ -1,9 +1,11 @@
-// Receiving PDFs into the register. The body is read as a stream and stored once, as it arrives: hashed and
-// counted on its way into object storage under an incoming key of its own (never held whole in memory, never
-// written to local disk). It is then checked by parsing (byte ranges of the incoming object), split per sheet if
-// asked, copied inside the store to the key named by its SHA-256 and recorded in one transaction. Whatever fails,
-// nothing is left behind: no row, no object, no incoming copy.
-import { createHash, randomUUID } from "node:crypto";
+// Receiving PDFs into the register. The body is read as a stream: hashed and counted on the way to a temporary
+// file (never held whole in memory), checked by parsing, split per sheet if asked, then stored in object storage
+// under its SHA-256 and recorded in one transaction. Whatever fails, nothing is left behind: no row, no object.
+import { createHash } from "node:crypto";
+import { createReadStream, createWriteStream } from "node:fs";
+import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import path from "node:path";
 import { Transform } from "node:stream";
 import { pipeline } from "node:stream/promises";
 import { PDFDocument } from "pdf-lib";
@@ -12,11 +14,11 @@ import { Drawing, DrawingRevision, sequelize, type PageSize, type RevisionStatus
 import { audit } from "../platform/audit.server";
 import { env } from "../platform/env.server";
 import { boundaryOf, drainBody, MultipartError, readMultipart } from "../platform/multipart.server";
-import { copyObject, deleteObject, discardObjects, getObjectBytes, objectExists, putObject } from "../platform/storage.server";
+import { discardObjects, objectExists, putObject } from "../platform/storage.server";
 import type { Role } from "../projects/permissions";
 import { DrawingError, keys } from "./errors";
 import { nextLabel } from "./labels";
-import { inspectPdf, objectSource, PdfProblem } from "./pdf.server";
+import { fileSource, inspectPdf, PdfProblem } from "./pdf.server";
 import { queueProcessing } from "./processing.server";
 import { uploadSchema, type UploadFields } from "./schemas";
 
@@ -46,14 +48,14 @@ export interface UploadOutcome {
 }
 
 interface Received {
+  file: string;
   filename: string;
   bytes: number;
   sha256: string;
 }
 
 interface Piece {
-  /** A page split off the upload, in memory; absent for the upload itself, which is already in the store. */
-  data?: Uint8Array;
+  file: string;
   sha256: string;
   bytes: number;
   pages: PageSize[];
@@ -93,11 +95,8 @@ function readFields(raw: Record<string, string>): UploadFields {
 
 const fieldLabel = (f: string) => ({ sheetNumber: "Sheet number", label: "Revision", title: "Title", mode: "Sheets" })[f] ?? f;
 
-/**
- * Reads the multipart body: fields first, then the one PDF, streamed into the store under `incomingKey` while it is
- * counted and hashed. `onStore` is called just before the first byte goes to the store.
- */
-async function receive(request: Request, incomingKey: string, onStore: () => void): Promise<{ fields: UploadFields; received: Received }> {
+/** Reads the multipart body: fields first, then the one PDF, streamed to a temporary file. */
+async function receive(request: Request, dir: string): Promise<{ fields: UploadFields; received: Received }> {
   const boundary = boundaryOf(request.headers.get("content-type"));
   if (!boundary || !request.body) throw new DrawingError("Send the PDF as a form upload (multipart/form-data).", 415, "not_multipart");
   const declared = Number(request.headers.get("content-length") ?? 0);
@@ -112,14 +111,10 @@ async function receive(request: Request, incomingKey: string, onStore: () => voi
       async onFile(part, raw) {
         // The fields came first: refuse bad ones before taking in the file.
         fields = readFields(raw);
+        const file = path.join(dir, "upload.pdf");
         const m = meter(env.UPLOAD_MAX_BYTES);
-        onStore();
-        const [piped, stored] = await Promise.allSettled([pipeline(part.stream, m.stream), putObject(incomingKey, m.stream, { contentType: "application/pdf" })]);
-        // The put passes on a failure of the stream itself (the size limit, the client gone); a failed put ends the
-        // stream early, so its own reason comes first.
-        if (stored.status === "rejected") throw stored.reason;
-        if (piped.status === "rejected") throw piped.reason;
-        received = { filename: part.filename.slice(0, 200), ...m.result() };
+        await pipeline(part.stream, m.stream, createWriteStream(file));
+        received = { file, filename: part.filename.slice(0, 200), ...m.result() };
       },
     });
   } catch (error) {
@@ -131,20 +126,20 @@ async function receive(request: Request, incomingKey: string, onStore: () => voi
   return { fields, received };
 }
 
-async function splitPages(incomingKey: string, received: Received, fields: UploadFields, pages: PageSize[]): Promise<Piece[]> {
-  // pdf-lib needs the whole set in memory; that is bounded by the upload limit and happens only for a split.
-  const whole = await getObjectBytes(incomingKey);
-  if (!whole) throw new Error(`the incoming upload ${incomingKey} is missing from the store`);
-  const source = await PDFDocument.load(whole, { updateMetadata: false });
+async function splitPages(received: Received, fields: UploadFields, pages: PageSize[], dir: string): Promise<Piece[]> {
+  // pdf-lib needs the whole set in memory; that is bounded by the upload limit and happens once per upload.
+  const source = await PDFDocument.load(await readFile(received.file), { updateMetadata: false });
   const pieces: Piece[] = [];
   for (let i = 0; i < source.getPageCount(); i++) {
     const doc = await PDFDocument.create({ updateMetadata: false });
     const [page] = await doc.copyPages(source, [i]);
     doc.addPage(page!);
     const bytes = await doc.save();
+    const file = path.join(dir, `page-${i + 1}.pdf`);
+    await writeFile(file, bytes);
     const n = String(i + 1).padStart(2, "0");
     pieces.push({
-      data: bytes,
+      file,
       sha256: createHash("sha256").update(bytes).digest("hex"),
       bytes: bytes.length,
       pages: [pages[i]!],
@@ -156,40 +151,30 @@ async function splitPages(incomingKey: string, received: Received, fields: Uploa
   return pieces;
 }
 
-/** Copies the incoming object to its content key unless that is there already (recorded, or arriving from elsewhere). */
-async function copyIfMissing(incomingKey: string, key: string, putKeys: string[]) {
-  if (await objectExists(key)) return;
-  putKeys.push(key);
-  await copyObject(incomingKey, key);
-}
-
 const baseName = (filename: string) => filename.replace(/\.[^.]*$/, "").trim() || "Untitled sheet";
 
 export async function receiveUpload(request: Request, actor: { id: string }, projectId: string, role: Role): Promise<UploadOutcome> {
-  const k = keys(projectId);
-  const incomingKey = k.incoming(randomUUID());
-  let incoming = false;
+  const dir = await mkdtemp(path.join(env.UPLOAD_TMP_DIR ?? tmpdir(), "countersign-upload-"));
   const putKeys: string[] = [];
-  let copyingWhole: Promise<void> | undefined;
   try {
-    const { fields, received } = await receive(request, incomingKey, () => (incoming = true));
-    // Unless it may be split, the file is copied to its content key while it is checked (both take a while for a
-    // large file); a file then refused is discarded below like anything else this request put.
-    if (fields.mode !== "split") copyingWhole = copyIfMissing(incomingKey, k.revision(received.sha256), putKeys);
-    copyingWhole?.catch(() => {}); // its failure is met where it is awaited
+    const { fields, received } = await receive(request, dir);
+    const source = await fileSource(received.file);
     let facts;
     try {
-      facts = await inspectPdf(objectSource(incomingKey, received.bytes), env.UPLOAD_MAX_PAGES);
+      facts = await inspectPdf(source, env.UPLOAD_MAX_PAGES);
     } catch (error) {
       if (error instanceof PdfProblem) throw new DrawingError(error.message, 422, error.code);
       throw error;
+    } finally {
+      await source.close?.();
     }
 
     const pieces: Piece[] =
       fields.mode === "split" && facts.pageCount > 1
-        ? await splitPages(incomingKey, received, fields, facts.pages)
-        : [{ sha256: received.sha256, bytes: received.bytes, pages: facts.pages, sheetNumber: fields.sheetNumber, title: fields.title || baseName(received.filename), sourcePage: null }];
+        ? await splitPages(received, fields, facts.pages, dir)
+        : [{ file: received.file, sha256: received.sha256, bytes: received.bytes, pages: facts.pages, sheetNumber: fields.sheetNumber, title: fields.title || baseName(received.filename), sourcePage: null }];
 
+    const k = keys(projectId);
     const existing = await DrawingRevision.findAll({
       where: { projectId, sha256: { [Op.in]: pieces.map((p) => p.sha256) } },
       attributes: ["id", "sha256", "label", "drawingId", "sourcePage"],
@@ -217,12 +202,8 @@ export async function receiveUpload(request: Request, actor: { id: string }, pro
     // Objects first (named by content, so a retry rewrites the same key), then the rows in one transaction.
     for (const p of fresh) {
       const key = k.revision(p.sha256);
-      if (!p.data) {
-        await (copyingWhole ??= copyIfMissing(incomingKey, key, putKeys));
-        continue;
-      }
       if (await objectExists(key)) continue;
-      await putObject(key, p.data, { contentType: "application/pdf", contentLength: p.bytes });
+      await putObject(key, createReadStream(p.file), { contentType: "application/pdf", contentLength: p.bytes });
       putKeys.push(key);
     }
 
@@ -275,10 +256,8 @@ export async function receiveUpload(request: Request, actor: { id: string }, pro
       duplicates,
     };
   } finally {
-    await copyingWhole?.catch(() => {});
     await discardObjects(putKeys, async (objectKey) => (await DrawingRevision.count({ where: { objectKey } })) > 0);
-    // No row ever names an incoming key. If the store is gone this fails too, and the object stays as an orphan.
-    if (incoming) await deleteObject(incomingKey).catch(() => {});
+    await rm(dir, { recursive: true, force: true });
   }
 }
 

@@ -25,9 +25,8 @@ const schema = z.object({
   MAX_FORM_BYTES: z.coerce.number().int().positive().default(1_048_576),
   /** Encrypts engineers' signing keys at rest. Changing it makes existing keys unusable (engineers are re-verified). */
   SIGNING_KEY_SECRET: z.string().min(16).default("dev-only-signing-key-secret"),
-  // Drawing uploads: the largest PDF and the most pages accepted; where request attachments wait while being checked.
-  // At most what S3 copies in one request: an upload is copied from its incoming key to its content key.
-  UPLOAD_MAX_BYTES: z.coerce.number().int().positive().max(5 * 1024 ** 3).default(200 * 1024 * 1024),
+  // Drawing uploads: the largest PDF and the most pages accepted, and where uploads wait while being checked.
+  UPLOAD_MAX_BYTES: z.coerce.number().int().positive().default(200 * 1024 * 1024),
   UPLOAD_MAX_PAGES: z.coerce.number().int().positive().default(100),
   UPLOAD_TMP_DIR: z.string().optional(),
   // Lifetime of presigned download links, in seconds.

@@ -2,10 +2,6 @@
 // streamed both ways; an unreachable store surfaces as StorageUnavailableError so callers can say so plainly.
 import type { Readable } from "node:stream";
 import {
-  AbortMultipartUploadCommand,
-  CompleteMultipartUploadCommand,
-  CopyObjectCommand,
-  CreateMultipartUploadCommand,
   DeleteObjectCommand,
   GetObjectCommand,
   HeadObjectCommand,
@@ -13,8 +9,8 @@ import {
   PutObjectCommand,
   S3Client,
   S3ServiceException,
-  UploadPartCommand,
 } from "@aws-sdk/client-s3";
+import { Upload } from "@aws-sdk/lib-storage";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "./env.server";
 
@@ -47,113 +43,17 @@ function unavailable(error: unknown): never {
   throw new StorageUnavailableError(error);
 }
 
-/** Bodies above this, or of a length not known in advance, go up as a multipart upload; smaller ones in one request. */
+/** Bodies above this go up as a multipart upload, several parts at once; smaller ones in one request. */
 const MULTIPART_FROM_BYTES = 32 * 1024 * 1024;
-/** Parts of a multipart upload, and how many go up at once. */
-const PART_BYTES = 8 * 1024 * 1024;
-const PARTS_AT_ONCE = 4;
 
-/**
- * Stores `body` under `key`. A stream of unknown length (no `contentLength`) is stored as it arrives, a part at a
- * time. A failed part, or a body that fails, aborts a multipart upload (no parts are left behind); a failed put
- * destroys a streamed body, so whatever feeds it stops too.
- */
-export async function putObject(key: string, body: Readable | Uint8Array, options: { contentType: string; contentLength?: number }) {
+export async function putObject(key: string, body: Readable | Uint8Array, options: { contentType: string; contentLength: number }) {
   try {
-    if (options.contentLength === undefined || options.contentLength > MULTIPART_FROM_BYTES) {
-      await putInParts(key, body instanceof Uint8Array ? [body] : body, options.contentType);
+    if (options.contentLength > MULTIPART_FROM_BYTES) {
+      // A failed part aborts the whole multipart upload (no parts are left behind in the store).
+      await new Upload({ client: s3, params: { Bucket, Key: key, Body: body, ContentType: options.contentType }, partSize: 16 * 1024 * 1024, queueSize: 4 }).done();
     } else {
       await s3.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: options.contentType, ContentLength: options.contentLength }));
     }
-  } catch (error) {
-    // A body that failed (a limit, a client gone) is no outage of the store.
-    if (error instanceof BodyFailure) throw error.reason;
-    // A store that failed reads no more of the body, so whatever feeds it must stop too.
-    if (!(body instanceof Uint8Array)) body.destroy();
-    unavailable(error);
-  }
-}
-
-/** What the body of a put threw, told apart from what the store answered. */
-class BodyFailure {
-  constructor(readonly reason: unknown) {}
-}
-
-async function* readBody(body: AsyncIterable<Uint8Array> | Iterable<Uint8Array>) {
-  try {
-    yield* body;
-  } catch (error) {
-    throw new BodyFailure(error);
-  }
-}
-
-/**
- * A multipart upload whose parts are filled in a few buffers used over and over: PARTS_AT_ONCE parts in flight and
- * one filling, so a streamed upload of any size holds (PARTS_AT_ONCE + 1) × PART_BYTES at most. (lib-storage's
- * Upload allocates every part afresh; the page faults of that new memory and the collections it forces were the
- * largest cost of a large upload.) A body shorter than one part goes up in one request.
- */
-async function putInParts(key: string, body: AsyncIterable<Uint8Array> | Iterable<Uint8Array>, contentType: string) {
-  const spare: Buffer[] = [];
-  const sending = new Set<Promise<void>>();
-  const parts: { PartNumber: number; ETag: string }[] = [];
-  let started: Promise<string> | undefined;
-  let failure: { error: unknown } | undefined;
-  let part: Buffer = Buffer.allocUnsafe(PART_BYTES);
-  let filled = 0;
-  let partNumber = 0;
-
-  const start = () =>
-    (started ??= s3.send(new CreateMultipartUploadCommand({ Bucket, Key: key, ContentType: contentType })).then((out) => out.UploadId!));
-  async function send(buffer: Buffer, length: number, n: number) {
-    const UploadId = await start();
-    const out = await s3.send(new UploadPartCommand({ Bucket, Key: key, UploadId, PartNumber: n, Body: buffer.subarray(0, length), ContentLength: length }));
-    parts.push({ PartNumber: n, ETag: out.ETag! });
-    spare.push(buffer);
-  }
-  async function flush() {
-    while (sending.size >= PARTS_AT_ONCE) await Promise.race(sending);
-    if (failure) throw failure.error;
-    const sent = send(part, filled, ++partNumber)
-      .catch((error) => void (failure ??= { error }))
-      .finally(() => sending.delete(sent));
-    sending.add(sent);
-    part = spare.pop() ?? Buffer.allocUnsafe(PART_BYTES);
-    filled = 0;
-  }
-
-  try {
-    for await (const chunk of readBody(body)) {
-      for (let at = 0; at < chunk.length; ) {
-        // A full part is sent only once more bytes come: the last part is never empty.
-        if (filled === PART_BYTES) await flush();
-        const n = Math.min(chunk.length - at, PART_BYTES - filled);
-        part.set(chunk.subarray(at, at + n), filled);
-        filled += n;
-        at += n;
-      }
-    }
-    if (partNumber === 0) {
-      await s3.send(new PutObjectCommand({ Bucket, Key: key, Body: part.subarray(0, filled), ContentType: contentType, ContentLength: filled }));
-      return;
-    }
-    await flush();
-    await Promise.all(sending);
-    if (failure) throw failure.error;
-    parts.sort((a, b) => a.PartNumber - b.PartNumber);
-    await s3.send(new CompleteMultipartUploadCommand({ Bucket, Key: key, UploadId: await start(), MultipartUpload: { Parts: parts } }));
-  } catch (error) {
-    await Promise.allSettled(sending);
-    const UploadId = await started?.catch(() => undefined);
-    if (UploadId) await s3.send(new AbortMultipartUploadCommand({ Bucket, Key: key, UploadId })).catch(() => {});
-    throw error;
-  }
-}
-
-/** Copies an object inside the bucket, in the store itself (S3 copies up to 5 GB in one request). */
-export async function copyObject(from: string, to: string) {
-  try {
-    await s3.send(new CopyObjectCommand({ Bucket, Key: to, CopySource: encodeURI(`${Bucket}/${from}`) }));
   } catch (error) {
     unavailable(error);
   }

@@ -4,7 +4,7 @@ import { execFileSync } from "node:child_process";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { PDFDocument, PDFName, rgb, StandardFonts } from "pdf-lib";
+import { PDFDocument, rgb, StandardFonts } from "pdf-lib";
 import { listKeys } from "../../app/platform/storage.server";
 import type { Client } from "./http";
 
@@ -70,66 +70,6 @@ export async function upload(client: Client, projectId: string, bytes: Uint8Arra
     body = { raw: text };
   }
   return { status: res.status, body };
-}
-
-/** A valid one-page sheet carrying an unused stream of `fillerBytes`, to make it as large as a test needs. */
-export async function largeSheet(fillerBytes: number, tag = `large-${Date.now()}`): Promise<Uint8Array> {
-  const doc = await PDFDocument.load(await makeSheet({ tag }));
-  const filler = new Uint8Array(fillerBytes);
-  for (let i = 0; i < filler.length; i += 4096) filler[i] = i & 0xff;
-  doc.catalog.set(PDFName.of("Filler"), doc.context.register(doc.context.stream(filler)));
-  return doc.save({ useObjectStreams: false });
-}
-
-/**
- * Posts a sheet as `upload` does, but streamed, keeping its last `heldBytes` back until `release` settles: a test
- * can wait, while the upload is still arriving, for what the server must already be doing with it. If `release`
- * fails, so does the upload, with that reason.
- */
-export async function uploadHolding(client: Client, projectId: string, bytes: Uint8Array, fields: UploadFields, release: Promise<unknown>, heldBytes = 1024 * 1024) {
-  const boundary = `----countersign-held-${Date.now().toString(36)}`;
-  const head = Object.entries(fields)
-    .filter(([, v]) => v !== undefined)
-    .map(([k, v]) => `--${boundary}\r\nContent-Disposition: form-data; name="${k}"\r\n\r\n${v}\r\n`)
-    .join("");
-  const whole = Buffer.concat([
-    Buffer.from(`${head}--${boundary}\r\nContent-Disposition: form-data; name="file"; filename="sheet.pdf"\r\nContent-Type: application/pdf\r\n\r\n`),
-    bytes,
-    Buffer.from(`\r\n--${boundary}--\r\n`),
-  ]);
-  const held = whole.length - heldBytes;
-  let failure: unknown;
-  const body = new ReadableStream<Uint8Array>({
-    start(c) {
-      for (let at = 0; at < held; at += 1024 * 1024) c.enqueue(whole.subarray(at, Math.min(at + 1024 * 1024, held)));
-    },
-    async pull(c) {
-      try {
-        await release;
-      } catch (error) {
-        failure = error;
-        return c.error(error);
-      }
-      c.enqueue(whole.subarray(held));
-      c.close();
-    },
-  });
-  const res = await client
-    .request(`/projects/${projectId}/drawings/upload`, {
-      method: "POST",
-      body,
-      headers: { "content-type": `multipart/form-data; boundary=${boundary}`, "content-length": String(whole.length), accept: "application/json" },
-      duplex: "half",
-    } as RequestInit)
-    .catch((error) => {
-      throw failure ?? error;
-    });
-  const text = await res.text();
-  try {
-    return { status: res.status, body: JSON.parse(text) };
-  } catch {
-    return { status: res.status, body: { raw: text } as any };
-  }
 }
 
 export async function objectKeys(prefix: string): Promise<string[]> {
