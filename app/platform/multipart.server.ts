@@ -76,21 +76,9 @@ export async function readMultipart(
   // A web stream's own iterator cancels it on an early exit; ours leaves it open so a refusal can be drained.
   const iterator = body instanceof ReadableStream ? streamIterable(body) : body;
 
-  /**
-   * How many bytes at the end of `buf` (which holds no whole delimiter) could be the start of one, and so must wait
-   * for the next chunk. Usually none: a delimiter starts with CR. Keeping no more than that lets the next chunk
-   * be used as it is instead of being copied onto the end of the last one.
-   */
-  function heldBack(buf: Buffer) {
-    for (let i = Math.max(0, buf.length - delimiter.length + 1); i < buf.length; i++) {
-      if (buf[i] === delimiter[0] && buf.subarray(i).equals(delimiter.subarray(0, buf.length - i))) return buf.length - i;
-    }
-    return 0;
-  }
-
   async function writeFile(chunk: Buffer) {
     if (!file || chunk.length === 0) return;
-    await stopIfFileFailed();
+    if (fileFailure) throw fileFailure;
     if (!file.stream.write(chunk)) {
       await new Promise<void>((resolve) => {
         const done = () => {
@@ -102,14 +90,7 @@ export async function readMultipart(
         file!.stream.on("close", done);
       });
     }
-    await stopIfFileFailed();
-  }
-
-  /** A file stream that was destroyed means `onFile` failed: wait for its reason, since a destroyed stream never drains. */
-  async function stopIfFileFailed() {
-    if (file?.stream.destroyed) await file.done;
     if (fileFailure) throw fileFailure;
-    if (file?.stream.destroyed) throw new Error("onFile stopped reading the file part before its end");
   }
 
   function addField(chunk: Buffer) {
@@ -136,16 +117,17 @@ export async function readMultipart(
       if (state === "preamble" || state === "field" || state === "file") {
         const at = buffer.indexOf(delimiter);
         if (at === -1) {
-          const keep = heldBack(buffer);
+          // Keep a tail that could be the start of a delimiter.
+          const keep = Math.min(buffer.length, delimiter.length - 1);
           const out = buffer.subarray(0, buffer.length - keep);
-          if (state === "field") addField(out);
-          if (state === "file") await writeFile(out);
+          if (state === "field") addField(Buffer.from(out));
+          if (state === "file") await writeFile(Buffer.from(out));
           buffer = buffer.subarray(buffer.length - keep);
           return true;
         }
         const out = buffer.subarray(0, at);
-        if (state === "field") addField(out);
-        if (state === "file") await writeFile(out);
+        if (state === "field") addField(Buffer.from(out));
+        if (state === "file") await writeFile(Buffer.from(out));
         await endPart();
         buffer = buffer.subarray(at + delimiter.length);
         state = "after-delimiter";
@@ -198,9 +180,7 @@ export async function readMultipart(
 
   try {
     for await (const chunk of iterator) {
-      // Chunks are passed on as views, never copied: neither they nor `buffer` are written to once read.
-      const bytes = Buffer.from(chunk.buffer, chunk.byteOffset, chunk.byteLength);
-      buffer = buffer.length ? Buffer.concat([buffer, bytes]) : bytes;
+      buffer = buffer.length ? Buffer.concat([buffer, chunk]) : Buffer.from(chunk);
       const more = await process();
       if (!more) break;
     }
