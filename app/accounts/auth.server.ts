@@ -9,7 +9,6 @@ import { apiError, clientIp } from "../platform/http.server";
 import { userContext, type CurrentUser } from "./context";
 import { burnPasswordCheck, verifyPassword } from "./password.server";
 
-
 /** Failed attempts allowed per e-mail address (and, more loosely, per client address) in the window. */
 export const SIGN_IN_LIMIT = { perEmail: 5, perIp: 30, windowMinutes: 15 } as const;
 
@@ -53,7 +52,7 @@ authenticator.use(
   "password",
 );
 
-/** Reads the session and loads the user: run once per request by the root middleware. */
+/** The signed-in user the root middleware loaded (sessionUser), or null. */
 export function optionalUser(context: Readonly<RouterContextProvider>) {
   return context.get(userContext);
 }

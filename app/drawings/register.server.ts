@@ -45,16 +45,11 @@ export interface DrawingView {
 }
 
 /** What the register page shows of a revision: no hashes, sizes or page sizes (the sheet page has those). */
-export type RegisterRevision = Pick<
-  RevisionView,
-  "id" | "label" | "status" | "description" | "processing" | "processedPages" | "pageCount" | "uploadedBy" | "uploadedAt" | "issuedBy" | "issuedAt"
->;
+const REGISTER_REVISION_FIELDS = ["id", "label", "status", "description", "processing", "processedPages", "pageCount", "uploadedBy", "uploadedAt", "issuedBy", "issuedAt"] as const;
+export type RegisterRevision = Pick<RevisionView, (typeof REGISTER_REVISION_FIELDS)[number]>;
 export type RegisterRow = Omit<DrawingView, "current" | "revisions"> & { current: RegisterRevision | null; revisions: RegisterRevision[] };
 
-function registerRevision(r: RevisionView): RegisterRevision {
-  const { id, label, status, description, processing, processedPages, pageCount, uploadedBy, uploadedAt, issuedBy, issuedAt } = r;
-  return { id, label, status, description, processing, processedPages, pageCount, uploadedBy, uploadedAt, issuedBy, issuedAt };
-}
+const registerRevision = (r: RevisionView) => Object.fromEntries(REGISTER_REVISION_FIELDS.map((f) => [f, r[f]])) as RegisterRevision;
 
 /** The register page's rows: a large register is sent to the browser (and into the document) a third the size. */
 export function toRegisterRows(drawings: DrawingView[]): RegisterRow[] {
