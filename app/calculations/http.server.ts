@@ -2,7 +2,6 @@
 // `data({ message, issues }, { status })` for the error boundary or the form.
 import { data } from "react-router";
 import { isDatabaseUnavailable } from "../../db/connection";
-import { readJsonBody } from "../platform/body.server";
 import { DomainError } from "../platform/failures.server";
 import { apiError } from "../platform/http.server";
 import { CalculationError } from "./calculations.server";
@@ -14,7 +13,8 @@ export async function forApi(work: () => Promise<Response>): Promise<Response> {
     return await work();
   } catch (error) {
     if (error instanceof Response) throw error;
-    if (error instanceof CalculationError) return apiError(error.status, error.message, error.issues.length ? { issues: error.issues } : {});
+    // The platform's refusals too (a body that is not JSON, text that cannot be stored), in the same shape.
+    if (error instanceof CalculationError || error instanceof DomainError) return apiError(error.status, error.message, error.issues?.length ? { issues: error.issues } : {});
     if (isDatabaseUnavailable(error)) return apiError(503, DB_DOWN);
     throw error;
   }
@@ -24,19 +24,8 @@ export async function forPage<T>(work: () => Promise<T>): Promise<T> {
   try {
     return await work();
   } catch (error) {
-    if (error instanceof CalculationError) throw data({ message: error.message }, { status: error.status });
+    if (error instanceof CalculationError || error instanceof DomainError) throw data({ message: error.message }, { status: error.status });
     if (isDatabaseUnavailable(error)) throw data({ message: DB_DOWN }, { status: 503 });
-    throw error;
-  }
-}
-
-/** Reads a JSON body; one that is not JSON, or holds text that cannot be stored, is refused with a plain message. */
-export async function readJson(request: Request): Promise<unknown> {
-  try {
-    return await readJsonBody(request);
-  } catch (error) {
-    // Calculation routes answer through their own forApi, which knows CalculationError only.
-    if (error instanceof DomainError) throw apiError(error.status, error.message, error.issues?.length ? { issues: error.issues } : {});
     throw error;
   }
 }

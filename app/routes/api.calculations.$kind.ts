@@ -3,7 +3,8 @@
 import type { Route } from "./+types/api.calculations.$kind";
 import { requireApiUser } from "~/accounts/auth.server";
 import { calculate } from "~/calculations/calculations.server";
-import { forApi, readJson } from "~/calculations/http.server";
+import { forApi } from "~/calculations/http.server";
+import { readJsonBody } from "~/platform/body.server";
 import { apiError } from "~/platform/http.server";
 
 export async function loader() {
@@ -14,7 +15,7 @@ export async function action({ context, request, params }: Route.ActionArgs) {
   requireApiUser(context);
   if (request.method !== "POST") return apiError(405, "Send the input with POST.");
   return forApi(async () => {
-    const { kind, input, output, engineVersion } = calculate(params.kind, await readJson(request));
+    const { kind, input, output, engineVersion } = calculate(params.kind, await readJsonBody(request));
     return Response.json({ kind, engineVersion, input, output });
   });
 }
