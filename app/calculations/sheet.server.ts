@@ -4,6 +4,7 @@
 // has them all.
 import { PDFDocument, rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import { embedFonts } from "~/platform/pdf-fonts.server";
+import { wrap } from "~/platform/pdf-writer.server";
 import type { BalanceInput, Figure } from "./kinds";
 import { flatten } from "./compare";
 import { formatDateTime, formatFigure, formatNumber } from "./format";
@@ -39,19 +40,10 @@ class Writer {
     return out;
   }
 
+  /** The text as one paragraph, wrapped by the platform's writer (nothing for empty text). */
   wrap(text: string, size: number, width: number, font = this.regular): string[] {
-    const words = this.clean(text).split(/\s+/).filter(Boolean);
-    const lines: string[] = [];
-    let line = "";
-    for (const w of words) {
-      const next = line ? `${line} ${w}` : w;
-      if (font.widthOfTextAtSize(next, size) > width && line) {
-        lines.push(line);
-        line = w;
-      } else line = next;
-    }
-    if (line) lines.push(line);
-    return lines;
+    const flat = this.clean(text).split(/\s+/).filter(Boolean).join(" ");
+    return flat ? wrap(flat, font, size, width) : [];
   }
 
   fits(height: number) {
